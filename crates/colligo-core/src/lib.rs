@@ -5,10 +5,25 @@
 //! No GUI and no file dialogs live here; the desktop app and the command
 //! line are thin layers over this crate.
 
+pub mod composition;
 pub mod error;
+pub mod formula;
 pub mod library;
+pub mod models;
+pub mod project;
+pub mod properties;
+pub mod quantity;
+pub mod solver;
+pub mod sweep;
 pub mod tfun;
+pub mod warnings;
 pub mod water;
 
-pub use error::LibraryError;
+pub use composition::Composition;
+pub use formula::{Formula, Line};
+pub use error::{FormulaError, LibraryError, ModelError, ProjectError, SolverError};
+pub use models::ModelId;
+pub use project::Project;
+pub use properties::{Conditions, Properties, Wanted, evaluate};
+pub use warnings::Warning;
 pub use library::Library;

@@ -45,6 +45,24 @@ pub enum TempFn {
     /// with the corrected multipliers of the 6th and 7th terms as
     /// transcribed in pytzer 0.6.0.
     Archer1992(Vec<f64>),
+    /// Spencer, Møller & Weare (1990), Geochim. Cosmochim. Acta 54:575, eq. 2,
+    /// the terms used for the Mg–Cl and Mg–SO4 parameters, as transcribed in
+    /// pytzer 0.6.0 (`SMW90_eq2`):
+    /// `a[0] + a[1] T + a[2] T² + a[3] T³ + a[4]/T + a[5] ln T`.
+    /// The coefficients are in pytzer's order (its names: a1, a2, a6, a9, a3, a4).
+    Spencer1990([f64; 6]),
+    /// Hovey, Pitzer & Rard (1993), J. Chem. Thermodyn. 25:173, eq. 36:
+    /// `a + b (1/T − 1/T_r) + c ln(T/T_r)`.
+    Hovey1993 {
+        /// Reference temperature T_r, K (298.15 in the paper).
+        t_ref_k: f64,
+        /// Value at T_r.
+        a: f64,
+        /// Coefficient of (1/T − 1/T_r), K.
+        b: f64,
+        /// Coefficient of ln(T/T_r).
+        c: f64,
+    },
 }
 
 impl TempFn {
@@ -82,6 +100,12 @@ impl TempFn {
                     + a[5] * 1e6 / (u * u * u)
             }
             TempFn::Archer1992(a) => archer1992_eq36(t, p_mpa, a),
+            TempFn::Spencer1990(a) => {
+                a[0] + a[1] * t + a[2] * t * t + a[3] * t * t * t + a[4] / t + a[5] * t.ln()
+            }
+            TempFn::Hovey1993 { t_ref_k, a, b, c } => {
+                a + b * (1.0 / t - 1.0 / t_ref_k) + c * (t / t_ref_k).ln()
+            }
         }
     }
 

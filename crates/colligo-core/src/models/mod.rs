@@ -1,0 +1,584 @@
+//! Water-activity models and the evaluator that runs them on a composition.
+//!
+//! | id | model | reference |
+//! |---|---|---|
+//! | `ideal` | Raoult, dissociated particles counted: a_w = x_w | Raoult (1887) |
+//! | `norrish` | ln a_w = ln x_w − (Σ √K_i x_i)² | Norrish (1966); Ferro Fontán & Chirife (1981) |
+//! | `ross` | a_w = Π a_w,i°(m_i) | Ross (1975) |
+//! | `zsr` | Σ m_i / m_i°(a_w) = 1 | Stokes & Robinson (1966) |
+//! | `pitzer` | ln a_w = −φ M_w Σ m (mixed electrolytes, θ, ψ, Eθ) | Pitzer (1991) |
+//! | `auto` | Norrish for non-electrolytes, Pitzer for electrolytes, ZSR for both | — |
+//!
+//! The hot path works on plain `f64` in SI units: moles, kilograms, kelvin.
+
+pub mod binary;
+pub mod pitzer;
+
+use std::fmt;
+use std::str::FromStr;
+
+use serde::{Deserialize, Serialize};
+
+use crate::composition::Composition;
+use crate::library::{FreezeBehaviour, Library, SoluteIdx};
+use crate::water::{M_W, T_ZERO_C};
+use binary::{Binary, WilsonBinary, best_binary};
+use pitzer::PitzerMixture;
+
+/// A water-activity model, as chosen by the user.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize, Default)]
+#[serde(rename_all = "snake_case")]
+pub enum ModelId {
+    /// Pick per mixture.
+    #[default]
+    Auto,
+    /// Raoult's law with dissociation.
+    Ideal,
+    /// Multi-solute Norrish (Ferro Fontán–Chirife).
+    Norrish,
+    /// Ross's product rule.
+    Ross,
+    /// Zdanovskii-Stokes-Robinson.
+    Zsr,
+    /// Pitzer ion interaction.
+    Pitzer,
+}
+
+impl ModelId {
+    /// All ids, `auto` first.
+    pub const ALL: [ModelId; 6] = [
+        ModelId::Auto,
+        ModelId::Ideal,
+        ModelId::Norrish,
+        ModelId::Ross,
+        ModelId::Zsr,
+        ModelId::Pitzer,
+    ];
+
+    /// The concrete models (everything but `auto`).
+    pub const CONCRETE: [ModelId; 5] = [
+        ModelId::Ideal,
+        ModelId::Norrish,
+        ModelId::Ross,
+        ModelId::Zsr,
+        ModelId::Pitzer,
+    ];
+
+    /// The id used on the command line and in files.
+    pub fn as_str(self) -> &'static str {
+        match self {
+            ModelId::Auto => "auto",
+            ModelId::Ideal => "ideal",
+            ModelId::Norrish => "norrish",
+            ModelId::Ross => "ross",
+            ModelId::Zsr => "zsr",
+            ModelId::Pitzer => "pitzer",
+        }
+    }
+
+    /// A descriptive name with its reference.
+    pub fn title(self) -> &'static str {
+        match self {
+            ModelId::Auto => "Automatic choice",
+            ModelId::Ideal => "Ideal (Raoult, with dissociation)",
+            ModelId::Norrish => "Norrish, multi-solute (Ferro Fontán & Chirife 1981)",
+            ModelId::Ross => "Ross (1975) product rule",
+            ModelId::Zsr => "Zdanovskii-Stokes-Robinson (Stokes & Robinson 1966)",
+            ModelId::Pitzer => "Pitzer ion interaction (Pitzer 1991)",
+        }
+    }
+}
+
+impl fmt::Display for ModelId {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(self.as_str())
+    }
+}
+
+impl FromStr for ModelId {
+    type Err = String;
+    fn from_str(s: &str) -> Result<Self, Self::Err> {
+        let t = s.trim().to_ascii_lowercase();
+        ModelId::ALL
+            .into_iter()
+            .find(|m| m.as_str() == t)
+            .ok_or_else(|| format!("unknown model `{s}` (choose auto, ideal, norrish, ross, zsr or pitzer)"))
+    }
+}
+
+/// The role a solute plays in the evaluator.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Role {
+    /// A non-electrolyte.
+    NonElectrolyte,
+    /// An electrolyte with Pitzer parameters for its ion pair.
+    PitzerSalt,
+    /// An electrolyte without Pitzer parameters (treated as ideal, dissociated).
+    IdealSalt,
+    /// A volatile co-solvent.
+    Volatile,
+}
+
+/// How dissolved amounts are capped by solubility.
+#[derive(Debug, Clone, PartialEq)]
+pub enum CapMode {
+    /// Every solute is capped at its solubility at the current temperature
+    /// in the current water.
+    Equilibrium,
+    /// While water freezes out: solutes that crystallise are capped at
+    /// their solubility at the current temperature in the remaining liquid;
+    /// glass-forming ones keep the amounts dissolved before freezing.
+    Freezing {
+        /// mol dissolved before freezing, per component.
+        before: Vec<f64>,
+    },
+}
+
+/// One solute in the evaluator.
+#[derive(Debug, Clone)]
+pub struct Component {
+    /// Library solute.
+    pub solute: SoluteIdx,
+    /// Total amount in the batch, mol.
+    pub mol: f64,
+    /// Particles per formula unit.
+    pub nu: f64,
+    /// Role.
+    pub role: Role,
+    /// Whether it stays dissolved (supersaturates) on freezing.
+    pub stays_dissolved_on_freezing: bool,
+}
+
+/// Evaluates ln a_w of one composition under one model, caching every
+/// temperature-dependent parameter until the temperature changes.
+#[derive(Debug, Clone)]
+pub struct Evaluator<'l> {
+    lib: &'l Library,
+    model: ModelId,
+    /// Components (solutes present), in library order.
+    pub comps: Vec<Component>,
+    /// Water in the batch, kg.
+    pub water_kg: f64,
+    pitzer: PitzerMixture,
+    /// For each Pitzer salt component: `(component, local ion, count)`.
+    salt_ions: Vec<(usize, usize, f64)>,
+    // Caches at temperature `t`.
+    t: f64,
+    signed_sqrt_k: Vec<f64>,
+    binaries: Vec<Binary>,
+    wilson: Vec<Option<WilsonBinary>>,
+    solubility: Vec<f64>,
+    // Scratch.
+    dissolved: Vec<f64>,
+    ion_m: Vec<f64>,
+    zsr_m: Vec<f64>,
+    last_ln_aw: f64,
+}
+
+/// Picks the model `auto` uses for a composition, and says why.
+pub fn auto_choice(lib: &Library, comp: &Composition) -> (ModelId, String) {
+    let present: Vec<_> = comp.solutes.iter().filter(|s| s.mol > 0.0).collect();
+    let n_el = present.iter().filter(|s| lib.solutes[s.solute].is_electrolyte()).count();
+    let n_vol = present.iter().filter(|s| lib.solutes[s.solute].volatile().is_some()).count();
+    let n = present.len();
+    match (n, n_el, n_vol) {
+        (0, _, _) => (ModelId::Ideal, "pure water".into()),
+        (1, _, 1) => (
+            ModelId::Ross,
+            "one volatile co-solvent: its Wilson binary with water".into(),
+        ),
+        (_, 0, 0) => (
+            ModelId::Norrish,
+            "non-electrolytes only: multi-solute Norrish".into(),
+        ),
+        (_, e, 0) if e == n => (
+            ModelId::Pitzer,
+            "electrolytes only: Pitzer with mixing terms".into(),
+        ),
+        _ => (
+            ModelId::Zsr,
+            "electrolytes and non-electrolytes (or a volatile co-solvent) together: ZSR on each solute's best binary"
+                .into(),
+        ),
+    }
+}
+
+impl<'l> Evaluator<'l> {
+    /// Prepares `comp` for repeated evaluation under `model` (`auto`
+    /// resolved by [`auto_choice`]). Only solutes present (mol > 0) take part.
+    pub fn new(lib: &'l Library, comp: &Composition, model: ModelId) -> Self {
+        let solutes: Vec<SoluteIdx> = comp.solutes.iter().filter(|s| s.mol > 0.0).map(|s| s.solute).collect();
+        let model = if model == ModelId::Auto {
+            auto_choice(lib, comp).0
+        } else {
+            model
+        };
+        let mut ev = Self::with_solutes(lib, &solutes, model);
+        ev.set_composition(comp);
+        ev
+    }
+
+    /// Prepares an evaluator for a fixed set of solutes (amounts zero until
+    /// [`Evaluator::set_composition`]), so one evaluator serves a whole
+    /// sweep or batch. `model` must be concrete; `auto` is taken as ideal.
+    pub fn with_solutes(lib: &'l Library, solutes: &[SoluteIdx], model: ModelId) -> Self {
+        let mut comps = Vec::new();
+        let mut sorted = solutes.to_vec();
+        sorted.sort_unstable();
+        sorted.dedup();
+        for &si in &sorted {
+            let sol = &lib.solutes[si];
+            let role = if sol.volatile().is_some() {
+                Role::Volatile
+            } else if sol.is_electrolyte() {
+                if sol.pair.is_some() {
+                    Role::PitzerSalt
+                } else {
+                    Role::IdealSalt
+                }
+            } else {
+                Role::NonElectrolyte
+            };
+            let stays = matches!(
+                sol.record.solubility.as_ref().map(|s| &s.on_freezing),
+                Some(FreezeBehaviour::StaysDissolved { .. })
+            );
+            comps.push(Component {
+                solute: si,
+                mol: 0.0,
+                nu: sol.nu,
+                role,
+                stays_dissolved_on_freezing: stays,
+            });
+        }
+        // Ions of the Pitzer salts.
+        let mut ions: Vec<usize> = Vec::new();
+        let mut salt_ions = Vec::new();
+        for (ci, c) in comps.iter().enumerate() {
+            if c.role != Role::PitzerSalt {
+                continue;
+            }
+            for &(ion, count) in &lib.solutes[c.solute].ions {
+                let local = match ions.iter().position(|&i| i == ion) {
+                    Some(p) => p,
+                    None => {
+                        ions.push(ion);
+                        ions.len() - 1
+                    }
+                };
+                salt_ions.push((ci, local, count));
+            }
+        }
+        let n = comps.len();
+        let n_ions = ions.len();
+        Evaluator {
+            lib,
+            model,
+            water_kg: 0.0,
+            pitzer: PitzerMixture::new(lib, ions),
+            salt_ions,
+            comps,
+            t: f64::NAN,
+            signed_sqrt_k: vec![0.0; n],
+            binaries: vec![Binary::Ideal { nu: 1.0 }; n],
+            wilson: vec![None; n],
+            solubility: vec![f64::INFINITY; n],
+            dissolved: vec![0.0; n],
+            ion_m: vec![0.0; n_ions],
+            zsr_m: vec![f64::NAN; n],
+            last_ln_aw: f64::NAN,
+        }
+    }
+
+    /// Sets water and solute amounts from `comp`. Solutes of `comp` outside
+    /// this evaluator's set are ignored; use [`Evaluator::covers`] first.
+    pub fn set_composition(&mut self, comp: &Composition) {
+        self.water_kg = comp.water_kg;
+        for c in &mut self.comps {
+            c.mol = comp.mol_of(c.solute);
+        }
+    }
+
+    /// True when every solute present in `comp` is in this evaluator.
+    pub fn covers(&self, comp: &Composition) -> bool {
+        comp.solutes
+            .iter()
+            .filter(|s| s.mol > 0.0)
+            .all(|s| self.comps.binary_search_by_key(&s.solute, |c| c.solute).is_ok())
+    }
+
+    /// The concrete model in use.
+    pub fn model(&self) -> ModelId {
+        self.model
+    }
+
+    /// The library.
+    pub fn library(&self) -> &'l Library {
+        self.lib
+    }
+
+    /// Updates the temperature-dependent caches.
+    pub fn set_t(&mut self, t_k: f64) {
+        if self.t == t_k {
+            return;
+        }
+        let lib = self.lib;
+        for (i, c) in self.comps.iter().enumerate() {
+            let s = &lib.solutes[c.solute];
+            self.signed_sqrt_k[i] = match (&s.record.norrish, c.role) {
+                (Some(n), Role::NonElectrolyte) => {
+                    let k = n.k.eval(t_k, 0.1);
+                    k.signum() * k.abs().sqrt()
+                }
+                _ => 0.0,
+            };
+            self.binaries[i] = best_binary(lib, c.solute, t_k);
+            self.wilson[i] = s.volatile().map(|v| WilsonBinary::new(v, t_k));
+            self.solubility[i] = s.solubility_molality(t_k).map_or(f64::INFINITY, |(m, _)| m);
+        }
+        self.pitzer.set_t(lib, t_k);
+        self.t = t_k;
+    }
+
+    /// Solubility of component `i` at the cached temperature, mol/kg.
+    pub fn solubility(&self, i: usize) -> f64 {
+        self.solubility[i]
+    }
+
+    /// The binary curve of component `i` at the cached temperature.
+    pub fn binary(&self, i: usize) -> &Binary {
+        &self.binaries[i]
+    }
+
+    /// Dissolved amounts (mol) at `t_k` in `water_kg` of liquid water.
+    pub fn dissolve(&mut self, t_k: f64, water_kg: f64, mode: &CapMode) -> &[f64] {
+        self.set_t(t_k);
+        for (i, c) in self.comps.iter().enumerate() {
+            let cap = self.solubility[i] * water_kg;
+            self.dissolved[i] = match mode {
+                CapMode::Equilibrium => c.mol.min(cap),
+                CapMode::Freezing { before } => {
+                    if c.stays_dissolved_on_freezing {
+                        before[i]
+                    } else {
+                        before[i].min(cap)
+                    }
+                }
+            };
+        }
+        &self.dissolved
+    }
+
+    /// ln a_w at `t_k` with `water_kg` of liquid water, amounts capped by `mode`.
+    pub fn ln_aw(&mut self, t_k: f64, water_kg: f64, mode: &CapMode) -> f64 {
+        self.dissolve(t_k, water_kg, mode);
+        let d = std::mem::take(&mut self.dissolved);
+        let r = self.ln_aw_of(t_k, water_kg, &d);
+        self.dissolved = d;
+        r
+    }
+
+    /// ln a_w at `t_k` for the given dissolved amounts (mol, per component)
+    /// in `water_kg` of water. This is the hot path.
+    pub fn ln_aw_of(&mut self, t_k: f64, water_kg: f64, dissolved: &[f64]) -> f64 {
+        self.set_t(t_k);
+        if water_kg <= 0.0 {
+            return f64::NEG_INFINITY;
+        }
+        let r = match self.model {
+            ModelId::Ideal | ModelId::Auto => self.ideal(water_kg, dissolved),
+            ModelId::Norrish => self.norrish(water_kg, dissolved),
+            ModelId::Ross => self.ross(water_kg, dissolved),
+            ModelId::Zsr => self.zsr(water_kg, dissolved),
+            ModelId::Pitzer => self.pitzer(water_kg, dissolved),
+        };
+        self.last_ln_aw = r;
+        r
+    }
+
+    fn ideal(&self, w: f64, d: &[f64]) -> f64 {
+        let nw = w / M_W;
+        let n: f64 = self.comps.iter().zip(d).map(|(c, n)| c.nu * n).sum();
+        -(n / nw).ln_1p()
+    }
+
+    /// Ross factor of the volatile components (their Wilson binaries).
+    fn volatile_ln_aw(&self, w: f64, d: &[f64]) -> f64 {
+        let mut s = 0.0;
+        for (i, c) in self.comps.iter().enumerate() {
+            if c.role == Role::Volatile
+                && let Some(wb) = &self.wilson[i]
+            {
+                s += wb.ln_aw(d[i] / w);
+            }
+        }
+        s
+    }
+
+    fn norrish(&self, w: f64, d: &[f64]) -> f64 {
+        let nw = w / M_W;
+        let mut ntot = nw;
+        let mut sk = 0.0;
+        for (i, c) in self.comps.iter().enumerate() {
+            if c.role == Role::Volatile {
+                continue;
+            }
+            ntot += c.nu * d[i];
+            sk += self.signed_sqrt_k[i] * d[i];
+        }
+        let sx = sk / ntot;
+        -(ntot / nw).ln() - sx.signum() * sx * sx + self.volatile_ln_aw(w, d)
+    }
+
+    fn ross(&self, w: f64, d: &[f64]) -> f64 {
+        self.binaries.iter().zip(d).map(|(b, n)| b.ln_aw(n / w)).sum()
+    }
+
+    fn pitzer(&mut self, w: f64, d: &[f64]) -> f64 {
+        self.ion_m.iter_mut().for_each(|m| *m = 0.0);
+        for &(ci, local, count) in &self.salt_ions {
+            self.ion_m[local] += count * d[ci] / w;
+        }
+        let (phi, sum) = self.pitzer.phi(&self.ion_m);
+        let mut ideal = 0.0;
+        for (i, c) in self.comps.iter().enumerate() {
+            if matches!(c.role, Role::NonElectrolyte | Role::IdealSalt) {
+                ideal += c.nu * d[i] / w;
+            }
+        }
+        -M_W * (phi * sum + ideal) + self.volatile_ln_aw(w, d)
+    }
+
+    /// ZSR: solve Σ m_i / m_i°(y) = 1 for y = ln a_w by Newton, warm-started
+    /// from the last answer (or from Ross's rule), each m_i° by safeguarded
+    /// Newton warm-started from the previous iteration.
+    fn zsr(&mut self, w: f64, d: &[f64]) -> f64 {
+        let n = self.comps.len();
+        let mut active = 0;
+        let mut ross = 0.0;
+        for i in 0..n {
+            let m = d[i] / w;
+            if m > 0.0 {
+                active += 1;
+                ross += self.binaries[i].ln_aw(m);
+            }
+        }
+        if active == 0 {
+            return 0.0;
+        }
+        if active == 1 {
+            return ross;
+        }
+        let mut y = ross;
+        // Initial m° guesses: binary curves are close to linear in m.
+        for i in 0..n {
+            let m = d[i] / w;
+            if m > 0.0 {
+                let yi = self.binaries[i].ln_aw(m);
+                self.zsr_m[i] = if yi < 0.0 { m * y / yi } else { m * active as f64 };
+            }
+        }
+        let (mut lo, mut hi) = (f64::NEG_INFINITY, 0.0_f64);
+        for _ in 0..60 {
+            let mut g = -1.0;
+            let mut dg = 0.0;
+            let mut ok = true;
+            for i in 0..n {
+                let m = d[i] / w;
+                if m <= 0.0 {
+                    continue;
+                }
+                match self.binaries[i].molality_at(y, self.zsr_m[i], 1.0e4) {
+                    Some((m0, dlna_dm)) if m0 > 0.0 => {
+                        self.zsr_m[i] = m0;
+                        g += m / m0;
+                        // d(m/m0)/dy = −m/m0² · dm0/dy, dm0/dy = 1/(d ln a/dm)
+                        dg += -m / (m0 * m0) / dlna_dm;
+                    }
+                    _ => {
+                        ok = false;
+                        break;
+                    }
+                }
+            }
+            if !ok {
+                // Some binary cannot reach y: y is too low.
+                lo = y;
+                y = if hi.is_finite() { 0.5 * (lo + hi) } else { 0.5 * y };
+                continue;
+            }
+            // g increases with y.
+            if g > 0.0 {
+                hi = y;
+            } else {
+                lo = y;
+            }
+            if g.abs() < 1e-13 {
+                return y;
+            }
+            let mut next = y - g / dg;
+            if !(next > lo && next < hi) || !next.is_finite() {
+                next = if lo.is_finite() { 0.5 * (lo + hi) } else { 2.0 * y - 1e-12 };
+            }
+            if (next - y).abs() < 1e-15 * y.abs().max(1e-12) {
+                return next;
+            }
+            y = next;
+        }
+        y
+    }
+
+    /// Shares of each component in the lowering of ln a_w, apportioned by
+    /// each solute's binary effect at its molality (they sum to the model's
+    /// ln a_w). Outside the hot path.
+    pub fn contributions(&mut self, t_k: f64, water_kg: f64, dissolved: &[f64]) -> Vec<f64> {
+        let total = self.ln_aw_of(t_k, water_kg, dissolved);
+        let parts: Vec<f64> = self
+            .binaries
+            .iter()
+            .zip(dissolved)
+            .map(|(b, n)| if water_kg > 0.0 { b.ln_aw(n / water_kg) } else { 0.0 })
+            .collect();
+        let sum: f64 = parts.iter().sum();
+        if sum == 0.0 {
+            return vec![0.0; parts.len()];
+        }
+        parts.iter().map(|p| p / sum * total).collect()
+    }
+
+    /// Water to bind as crystal hydrate, kg, for amounts that did not dissolve.
+    pub fn hydrate_water_kg(&self, undissolved: &[f64]) -> f64 {
+        self.comps
+            .iter()
+            .zip(undissolved)
+            .map(|(c, u)| {
+                let h = match self.lib.solutes[c.solute].record.solubility.as_ref().map(|s| &s.on_freezing) {
+                    Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
+                    _ => 0.0,
+                };
+                h * u * M_W
+            })
+            .sum()
+    }
+
+    /// Dissolved amounts of the last [`Evaluator::dissolve`] or
+    /// [`Evaluator::ln_aw`] call, mol per component.
+    pub fn last_dissolved(&self) -> &[f64] {
+        &self.dissolved
+    }
+
+    /// The binary molality m_i° of component `i` at the last ZSR solution.
+    pub fn zsr_molality(&self, i: usize) -> Option<f64> {
+        self.zsr_m.get(i).copied().filter(|m| m.is_finite())
+    }
+
+    /// The temperature currently cached, K.
+    pub fn temperature(&self) -> f64 {
+        self.t
+    }
+
+    /// The temperature currently cached, °C.
+    pub fn temperature_c(&self) -> f64 {
+        self.t - T_ZERO_C
+    }
+}
