@@ -8,6 +8,7 @@
 pub mod composition;
 pub mod error;
 pub mod formula;
+pub mod goal;
 pub mod library;
 pub mod models;
 pub mod project;

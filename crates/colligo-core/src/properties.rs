@@ -191,11 +191,19 @@ pub struct WarmStart {
 /// # Errors
 /// [`ModelError::Undefined`] when no ice forms above −60 °C; solver errors.
 pub fn freezing_point(ev: &mut Evaluator<'_>, before: &[f64], warm: Option<f64>) -> Result<f64, ModelError> {
-    let w = ev.water_kg;
     let mode = CapMode::Freezing {
         before: before.to_vec(),
     };
-    let mut g = |t: f64| ev.ln_aw(t, w, &mode) - water::ice_equilibrium_ln_aw(t);
+    freezing_point_with(ev, &mode, warm)
+}
+
+/// Freezing point, K, with amounts capped by `mode` at each trial temperature.
+///
+/// # Errors
+/// As [`freezing_point`].
+pub fn freezing_point_with(ev: &mut Evaluator<'_>, mode: &CapMode, warm: Option<f64>) -> Result<f64, ModelError> {
+    let w = ev.water_kg;
+    let mut g = |t: f64| ev.ln_aw(t, w, mode) - water::ice_equilibrium_ln_aw(t);
     let x0 = match warm {
         Some(t) => t,
         None => {

@@ -209,14 +209,15 @@ pub struct VolatileRecord {
 }
 
 /// Wilson (1964) parameters, solute (1) – water (2):
-/// Λ12 = (V2/V1) exp(−a12/(R T)), Λ21 = (V1/V2) exp(−a21/(R T)).
+/// Λ12 = (V2/V1) exp(−a12/(R T)), Λ21 = (V1/V2) exp(−a21/(R T)),
+/// with a12 and a21 possibly temperature dependent.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct WilsonRecord {
     /// a12 = λ12 − λ11, J/mol.
-    pub a12_j_per_mol: f64,
+    pub a12_j_per_mol: TempFn,
     /// a21 = λ21 − λ22, J/mol.
-    pub a21_j_per_mol: f64,
+    pub a21_j_per_mol: TempFn,
     /// Liquid molar volume of the solute, cm³/mol.
     pub v_solute_cm3_per_mol: f64,
     /// Liquid molar volume of water, cm³/mol.

@@ -146,8 +146,8 @@ impl WilsonBinary {
         let v1 = w.v_solute_cm3_per_mol;
         let v2 = w.v_water_cm3_per_mol;
         WilsonBinary {
-            l12: v2 / v1 * (-w.a12_j_per_mol / (R * t_k)).exp(),
-            l21: v1 / v2 * (-w.a21_j_per_mol / (R * t_k)).exp(),
+            l12: v2 / v1 * (-w.a12_j_per_mol.eval(t_k, 0.1) / (R * t_k)).exp(),
+            l21: v1 / v2 * (-w.a21_j_per_mol.eval(t_k, 0.1) / (R * t_k)).exp(),
         }
     }
 

@@ -125,6 +125,9 @@ pub enum CapMode {
     /// Every solute is capped at its solubility at the current temperature
     /// in the current water.
     Equilibrium,
+    /// No cap at all: every amount counts as dissolved (supersaturated
+    /// solutions, as in handbook tables measured on metastable solutions).
+    Unlimited,
     /// While water freezes out: solutes that crystallise are capped at
     /// their solubility at the current temperature in the remaining liquid;
     /// glass-forming ones keep the amounts dissolved before freezing.
@@ -357,6 +360,7 @@ impl<'l> Evaluator<'l> {
             let cap = self.solubility[i] * water_kg;
             self.dissolved[i] = match mode {
                 CapMode::Equilibrium => c.mol.min(cap),
+                CapMode::Unlimited => c.mol,
                 CapMode::Freezing { before } => {
                     if c.stays_dissolved_on_freezing {
                         before[i]

@@ -28,7 +28,7 @@ pub const B: f64 = 1.2;
 /// Trans. 90:1875, Appendix II, Chebyshev fit (as transcribed in pytzer
 /// 0.6.0, `Aosm_CRP94`). 373.15–573.15 K: Møller (1988), Geochim.
 /// Cosmochim. Acta 52:821, eq. 13 fit. Between 363.15 and 373.15 K the two
-/// are blended linearly (they differ there by < 2e-4).
+/// are blended linearly (they differ by 6e-4 at 100 °C).
 pub fn aphi(t_k: f64) -> f64 {
     const LO: f64 = 363.15;
     const HI: f64 = 373.15;
@@ -79,7 +79,9 @@ pub fn aphi_crp94(t_k: f64) -> f64 {
 
 /// A_φ of Møller (1988) eq. 13 (valid 273.15–573.15 K).
 pub fn aphi_m88(t_k: f64) -> f64 {
-    crate::tfun::TempFn::Moller1988([
+    crate::tfun::moller1988_eq13(
+        t_k,
+        &[
         3.369_015_32e-1,
         -6.321_004_30e-4,
         9.142_523_59,
@@ -88,8 +90,8 @@ pub fn aphi_m88(t_k: f64) -> f64 {
         1.921_185_97e-6,
         4.525_864_64e1,
         0.0,
-    ])
-    .eval(t_k, 0.1)
+        ],
+    )
 }
 
 /// Harvie's approximation of Pitzer's J(x) and J′(x) (Pitzer 1991,
@@ -453,8 +455,10 @@ mod tests {
 
     #[test]
     fn aphi_blend_is_continuous() {
-        let d = (aphi_crp94(368.15) - aphi_m88(368.15)).abs();
-        assert!(d < 5e-4, "{d}");
+        for t in [363.15, 373.15] {
+            let d = (aphi(t - 1e-6) - aphi(t + 1e-6)).abs();
+            assert!(d < 1e-8, "{t}: {d}");
+        }
     }
 
     #[test]
