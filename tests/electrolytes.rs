@@ -14,7 +14,9 @@ fn brine(lib: &Library, ids: &str, molalities: &[f64]) -> Composition {
     let mut c = Composition::new();
     c.add_water(1.0);
     for (id, m) in ids.split('+').zip(molalities) {
-        let s = lib.solute(id).unwrap_or_else(|| panic!("unknown solute {id}"));
+        let s = lib
+            .solute(id)
+            .unwrap_or_else(|| panic!("unknown solute {id}"));
         let mm = lib.solutes[s].molar_mass;
         c.add_solute(s, m * mm, mm);
     }
@@ -36,7 +38,8 @@ fn particles(lib: &Library, ids: &str, molalities: &[f64]) -> f64 {
 #[test]
 fn osmotic_coefficients() {
     let lib = library();
-    let mut checks: std::collections::BTreeMap<&str, (Check, Check)> = std::collections::BTreeMap::new();
+    let mut checks: std::collections::BTreeMap<&str, (Check, Check)> =
+        std::collections::BTreeMap::new();
     for r in table("osmotic_coefficients") {
         let sys = r.str("system");
         let m = r.nums("molalities");
@@ -48,9 +51,12 @@ fn osmotic_coefficients() {
         let got_phi = -ln_aw / (M_W * particles(&lib, sys, &m));
         let label = format!("{sys} {m:?} mol/kg at {} °C", r.num("t_c"));
         let (kind, tp, ta) = tolerances(&r);
-        let (phi, aw) = checks
-            .entry(kind)
-            .or_insert_with(|| (Check::new(&format!("osmotic φ, {kind}")), Check::new(&format!("osmotic a_w, {kind}"))));
+        let (phi, aw) = checks.entry(kind).or_insert_with(|| {
+            (
+                Check::new(&format!("osmotic φ, {kind}")),
+                Check::new(&format!("osmotic a_w, {kind}")),
+            )
+        });
         if let Some(want) = r.opt_num("osmotic_coefficient") {
             phi.compare(&r, &label, got_phi, want, Tol::Abs(tp));
         }
@@ -94,11 +100,18 @@ fn boiling_points() {
         let p = r.num("pressure_kpa") * 1000.0;
         let comp = brine(&lib, sys, &m);
         let mut ev = Evaluator::new(&lib, &comp, ModelId::Pitzer);
-        let tb = boiling_point(&mut ev, p, None).unwrap_or_else(|e| panic!("{sys}: {e}")) - T_ZERO_C;
+        let tb =
+            boiling_point(&mut ev, p, None).unwrap_or_else(|e| panic!("{sys}: {e}")) - T_ZERO_C;
         // pytzer rows: same model, 0.05 K; the handbook row for saturated
         // brine is given to 0.1 K.
         let tol = if r.str("tag") == "Pub" { 0.3 } else { 0.05 };
-        c.compare(&r, &format!("{sys} {m:?} mol/kg at {p} Pa"), tb, r.num("boiling_point_c"), Tol::Abs(tol));
+        c.compare(
+            &r,
+            &format!("{sys} {m:?} mol/kg at {p} Pa"),
+            tb,
+            r.num("boiling_point_c"),
+            Tol::Abs(tol),
+        );
     }
     c.finish();
 }
@@ -120,10 +133,17 @@ fn saturated_salt_solutions() {
             temperature_k: r.num("t_c") + T_ZERO_C,
             ..Conditions::default()
         };
-        let p = evaluate(&lib, &comp, ModelId::Auto, &cond, Wanted::WATER_ACTIVITY).unwrap_or_else(|e| panic!("{e}"));
+        let p = evaluate(&lib, &comp, ModelId::Auto, &cond, Wanted::WATER_ACTIVITY)
+            .unwrap_or_else(|e| panic!("{e}"));
         // Greenspan's uncertainty (± 0.12 % for NaCl) plus the solubility
         // curve's: 0.3 % ERH.
-        c.compare(&r, &format!("saturated {id}"), p.erh_percent, r.num("erh_percent"), Tol::Abs(r.num("uncertainty_percent") + 0.3));
+        c.compare(
+            &r,
+            &format!("saturated {id}"),
+            p.erh_percent,
+            r.num("erh_percent"),
+            Tol::Abs(r.num("uncertainty_percent") + 0.3),
+        );
     }
     c.finish();
 }
@@ -139,7 +159,8 @@ fn nacl_eutectic() {
         // Find T where a_w(saturated at T) = a_w,ice(T) by bisection.
         let comp = brine(&lib, r.str("solute"), &[8.0]);
         let mut ev = Evaluator::new(&lib, &comp, ModelId::Auto);
-        let mut f = |t: f64| ev.ln_aw(t, 1.0, &CapMode::Equilibrium) - water::ice_equilibrium_ln_aw(t);
+        let mut f =
+            |t: f64| ev.ln_aw(t, 1.0, &CapMode::Equilibrium) - water::ice_equilibrium_ln_aw(t);
         let (mut lo, mut hi) = (T_ZERO_C - 30.0, T_ZERO_C - 10.0);
         assert!(f(lo) > 0.0 && f(hi) < 0.0, "no eutectic bracket");
         for _ in 0..60 {
@@ -147,10 +168,25 @@ fn nacl_eutectic() {
             if f(mid) > 0.0 { lo = mid } else { hi = mid }
         }
         let te = 0.5 * (lo + hi);
-        let (m_sat, _) = lib.solutes[na].solubility_molality(te).unwrap_or((f64::NAN, false));
-        let wt = 100.0 * m_sat * lib.solutes[na].molar_mass / (1.0 + m_sat * lib.solutes[na].molar_mass);
-        c.compare(&r, "eutectic temperature °C", te - T_ZERO_C, r.num("t_c"), Tol::Abs(0.4));
-        c.compare(&r, "eutectic brine wt %", wt, r.num("mass_percent"), Tol::Abs(0.4));
+        let (m_sat, _) = lib.solutes[na]
+            .solubility_molality(te)
+            .unwrap_or((f64::NAN, false));
+        let wt =
+            100.0 * m_sat * lib.solutes[na].molar_mass / (1.0 + m_sat * lib.solutes[na].molar_mass);
+        c.compare(
+            &r,
+            "eutectic temperature °C",
+            te - T_ZERO_C,
+            r.num("t_c"),
+            Tol::Abs(0.4),
+        );
+        c.compare(
+            &r,
+            "eutectic brine wt %",
+            wt,
+            r.num("mass_percent"),
+            Tol::Abs(0.4),
+        );
     }
     c.finish();
 }
@@ -172,8 +208,15 @@ fn ice_fraction_of_brines() {
         ev.ln_aw(298.15, comp.water_kg, &CapMode::Equilibrium);
         let before = ev.last_dissolved().to_vec();
         let t = r.num("t_c") + T_ZERO_C;
-        let p = ice_fraction(&mut ev, &before, 1.0, t, &mut WarmStart::default()).unwrap_or_else(|e| panic!("{e}"));
-        c.compare(&r, &format!("{wt} wt % {id} at {} °C", r.num("t_c")), p.ice_fraction_of_water, r.num("ice_fraction_of_water"), Tol::Abs(2e-3));
+        let p = ice_fraction(&mut ev, &before, 1.0, t, &mut WarmStart::default())
+            .unwrap_or_else(|e| panic!("{e}"));
+        c.compare(
+            &r,
+            &format!("{wt} wt % {id} at {} °C", r.num("t_c")),
+            p.ice_fraction_of_water,
+            r.num("ice_fraction_of_water"),
+            Tol::Abs(2e-3),
+        );
     }
     c.finish();
 }

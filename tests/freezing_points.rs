@@ -42,20 +42,25 @@ fn tolerance(r: &Row) -> f64 {
 }
 
 fn depression(lib: &colligo_core::Library, id: &str, wt: f64) -> f64 {
-    let s = lib.solute(id).unwrap_or_else(|| panic!("unknown solute {id}"));
+    let s = lib
+        .solute(id)
+        .unwrap_or_else(|| panic!("unknown solute {id}"));
     let mut comp = Composition::new();
     comp.add_water(1.0 - wt / 100.0);
     comp.add_solute(s, wt / 100.0, lib.solutes[s].molar_mass);
     let mut ev = Evaluator::new(lib, &comp, ModelId::Auto);
     // Handbook freezing points include metastable, supersaturated
     // solutions (urea beyond its eutectic): no solubility cap.
-    T_ZERO_C - freezing_point_with(&mut ev, &CapMode::Unlimited, None).unwrap_or_else(|e| panic!("{id} {wt} %: {e}"))
+    T_ZERO_C
+        - freezing_point_with(&mut ev, &CapMode::Unlimited, None)
+            .unwrap_or_else(|e| panic!("{id} {wt} %: {e}"))
 }
 
 #[test]
 fn freezing_point_depressions() {
     let lib = library();
-    let mut by_solute: std::collections::BTreeMap<String, Check> = std::collections::BTreeMap::new();
+    let mut by_solute: std::collections::BTreeMap<String, Check> =
+        std::collections::BTreeMap::new();
     for r in table("freezing_points") {
         let id = r.str("solute").to_string();
         let wt = r.num("mass_percent");
@@ -64,7 +69,13 @@ fn freezing_point_depressions() {
         by_solute
             .entry(id.clone())
             .or_insert_with(|| Check::new(&format!("freezing_points {id}")))
-            .compare(&r, &format!("ΔT_f {id} {wt} wt %"), got, r.num("delta_t_k"), Tol::Rel(tol));
+            .compare(
+                &r,
+                &format!("ΔT_f {id} {wt} wt %"),
+                got,
+                r.num("delta_t_k"),
+                Tol::Rel(tol),
+            );
     }
     colligo_reference::finish_all(by_solute.into_values());
 }

@@ -45,9 +45,9 @@ impl Row {
         self.str(col)
             .split(';')
             .map(|s| {
-                s.trim()
-                    .parse()
-                    .unwrap_or_else(|_| panic!("line {}: `{s}` in `{col}` is not a number", self.line))
+                s.trim().parse().unwrap_or_else(|_| {
+                    panic!("line {}: `{s}` in `{col}` is not a number", self.line)
+                })
             })
             .collect()
     }
@@ -86,15 +86,29 @@ pub fn split_csv(line: &str) -> Vec<String> {
 
 /// Reads `tests/data/<name>.csv`.
 pub fn table(name: &str) -> Vec<Row> {
-    let path: PathBuf = [env!("CARGO_MANIFEST_DIR"), "data", &format!("{name}.csv")].iter().collect();
+    let path: PathBuf = [env!("CARGO_MANIFEST_DIR"), "data", &format!("{name}.csv")]
+        .iter()
+        .collect();
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
-    let mut lines = text.lines().enumerate().filter(|(_, l)| !l.trim().is_empty() && !l.starts_with('#'));
-    let (_, header) = lines.next().unwrap_or_else(|| panic!("{name}.csv is empty"));
+    let mut lines = text
+        .lines()
+        .enumerate()
+        .filter(|(_, l)| !l.trim().is_empty() && !l.starts_with('#'));
+    let (_, header) = lines
+        .next()
+        .unwrap_or_else(|| panic!("{name}.csv is empty"));
     let header = split_csv(header);
     lines
         .map(|(i, l)| {
             let f = split_csv(l);
-            assert_eq!(f.len(), header.len(), "{name}.csv line {}: {} fields, header has {}", i + 1, f.len(), header.len());
+            assert_eq!(
+                f.len(),
+                header.len(),
+                "{name}.csv line {}: {} fields, header has {}",
+                i + 1,
+                f.len(),
+                header.len()
+            );
             Row {
                 line: i + 1,
                 fields: header.iter().cloned().zip(f).collect(),
@@ -152,13 +166,16 @@ impl Check {
         let r = if want != 0.0 { d / want } else { d };
         let desc = format!("{label}: got {got:.6}, want {want:.6} ({})", row.source());
         if !row.hard() {
-            self.soft
-                .push(format!("{desc} — soft (tag {}), deviation {d:+.3e}", row.str("tag")));
+            self.soft.push(format!(
+                "{desc} — soft (tag {}), deviation {d:+.3e}",
+                row.str("tag")
+            ));
             return;
         }
         self.n += 1;
         if !got.is_finite() || !tol.ok(got, want) {
-            self.failures.push(format!("line {}: {desc}, tolerance {tol:?}", row.line));
+            self.failures
+                .push(format!("line {}: {desc}, tolerance {tol:?}", row.line));
         }
         if d.abs() > self.worst_abs.0 || !got.is_finite() {
             self.worst_abs = (d.abs(), desc.clone());
@@ -171,8 +188,14 @@ impl Check {
     /// Prints the summary; returns the failure text, if any.
     pub fn report(self) -> Option<String> {
         println!("[{}] {} hard checks", self.name, self.n);
-        println!("  worst absolute deviation {:.3e}: {}", self.worst_abs.0, self.worst_abs.1);
-        println!("  worst relative deviation {:.3e}: {}", self.worst_rel.0, self.worst_rel.1);
+        println!(
+            "  worst absolute deviation {:.3e}: {}",
+            self.worst_abs.0, self.worst_abs.1
+        );
+        println!(
+            "  worst relative deviation {:.3e}: {}",
+            self.worst_rel.0, self.worst_rel.1
+        );
         for s in &self.soft {
             println!("  {s}");
         }

@@ -77,7 +77,14 @@ impl Composition {
                 c.solutes[i].mol = mol;
                 c.solutes[i].kg = mol * m;
             }
-            Err(i) => c.solutes.insert(i, SoluteAmount { solute, kg: mol * m, mol }),
+            Err(i) => c.solutes.insert(
+                i,
+                SoluteAmount {
+                    solute,
+                    kg: mol * m,
+                    mol,
+                },
+            ),
         }
         c
     }

@@ -52,7 +52,13 @@ pub(crate) fn suggest_text(s: &[String]) -> String {
     if s.is_empty() {
         String::new()
     } else {
-        format!(" (did you mean {}?)", s.iter().map(|x| format!("`{x}`")).collect::<Vec<_>>().join(", "))
+        format!(
+            " (did you mean {}?)",
+            s.iter()
+                .map(|x| format!("`{x}`"))
+                .collect::<Vec<_>>()
+                .join(", ")
+        )
     }
 }
 
@@ -98,7 +104,9 @@ pub enum ModelError {
     #[error("the formula contains no water")]
     NoWater,
     /// The temperature is outside every equation's range.
-    #[error("temperature {t_c:.2} °C is outside the range of the water equations ({min_c:.0} to {max_c:.0} °C)")]
+    #[error(
+        "temperature {t_c:.2} °C is outside the range of the water equations ({min_c:.0} to {max_c:.0} °C)"
+    )]
     TemperatureOutOfRange {
         /// Requested, °C.
         t_c: f64,
@@ -150,7 +158,9 @@ pub enum FormulaError {
         value: f64,
     },
     /// Percentages of batch add up to 100 % or more.
-    #[error("percentages of batch add up to {total:.1} %, leaving nothing for the weighed ingredients")]
+    #[error(
+        "percentages of batch add up to {total:.1} %, leaving nothing for the weighed ingredients"
+    )]
     PercentOverflow {
         /// Sum of percentages.
         total: f64,
@@ -188,7 +198,9 @@ pub enum ProjectError {
         message: String,
     },
     /// The file is from a newer or unknown format version.
-    #[error("{path}: project format version {found} is not supported (this build reads up to {supported})")]
+    #[error(
+        "{path}: project format version {found} is not supported (this build reads up to {supported})"
+    )]
     Version {
         /// File path.
         path: String,

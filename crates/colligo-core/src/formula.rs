@@ -213,7 +213,10 @@ mod tests {
         let lib = Library::builtin().unwrap_or_else(|e| panic!("{e}"));
         let f = Formula::new("t", vec![Line::grams("sucrse", 1.0)]);
         match f.resolve(&lib) {
-            Err(FormulaError::Library(crate::LibraryError::UnknownIngredient { suggestions, .. })) => {
+            Err(FormulaError::Library(crate::LibraryError::UnknownIngredient {
+                suggestions,
+                ..
+            })) => {
                 assert!(suggestions.iter().any(|s| s == "sucrose"));
             }
             other => panic!("{other:?}"),

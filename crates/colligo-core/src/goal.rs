@@ -57,7 +57,10 @@ impl Target {
             Target::WaterActivity(_) => Target::WaterActivity(v),
             Target::ErhPercent(_) => Target::ErhPercent(v),
             Target::FreezingPointC(_) => Target::FreezingPointC(v),
-            Target::IceFraction { storage_k, .. } => Target::IceFraction { fraction: v, storage_k },
+            Target::IceFraction { storage_k, .. } => Target::IceFraction {
+                fraction: v,
+                storage_k,
+            },
         }
     }
 
@@ -68,14 +71,21 @@ impl Target {
                 Target::WaterActivity(v) => *v > 0.0 && *v < 1.0,
                 Target::ErhPercent(v) => *v > 0.0 && *v < 100.0,
                 Target::FreezingPointC(v) => *v < 0.0 && *v > -60.0,
-                Target::IceFraction { fraction, storage_k } => {
-                    (0.0..1.0).contains(fraction) && *storage_k < T_ZERO_C && *storage_k > T_ZERO_C - 60.0
+                Target::IceFraction {
+                    fraction,
+                    storage_k,
+                } => {
+                    (0.0..1.0).contains(fraction)
+                        && *storage_k < T_ZERO_C
+                        && *storage_k > T_ZERO_C - 60.0
                 }
             };
         if ok {
             Ok(())
         } else {
-            Err(format!("target {self} is outside what the property can take"))
+            Err(format!(
+                "target {self} is outside what the property can take"
+            ))
         }
     }
 
@@ -114,8 +124,15 @@ impl fmt::Display for Target {
             Target::WaterActivity(v) => write!(f, "water_activity={v}"),
             Target::ErhPercent(v) => write!(f, "erh_percent={v}"),
             Target::FreezingPointC(v) => write!(f, "freezing_point_c={v}"),
-            Target::IceFraction { fraction, storage_k } => {
-                write!(f, "ice_fraction_of_water@{}C={fraction}", storage_k - T_ZERO_C)
+            Target::IceFraction {
+                fraction,
+                storage_k,
+            } => {
+                write!(
+                    f,
+                    "ice_fraction_of_water@{}C={fraction}",
+                    storage_k - T_ZERO_C
+                )
             }
         }
     }
@@ -129,7 +146,10 @@ impl FromStr for Target {
         let (key, value) = s
             .split_once('=')
             .ok_or_else(|| format!("`{s}`: expected property=value, e.g. water_activity=0.85"))?;
-        let v: f64 = value.trim().parse().map_err(|_| format!("`{value}` is not a number"))?;
+        let v: f64 = value
+            .trim()
+            .parse()
+            .map_err(|_| format!("`{value}` is not a number"))?;
         let key = key.trim();
         let t = match key {
             "water_activity" | "aw" | "a_w" => Target::WaterActivity(v),
@@ -213,7 +233,8 @@ pub fn goal_seek(
     cond: &Conditions,
 ) -> Result<GoalResult, GoalError> {
     target.check().map_err(GoalError::BadTarget)?;
-    lib.ingredient_or_suggest(ingredient).map_err(FormulaError::from)?;
+    lib.ingredient_or_suggest(ingredient)
+        .map_err(FormulaError::from)?;
     let (c, wanted) = target.conditions(cond);
     let tv = target.value();
     let mut evals = 0usize;
@@ -258,7 +279,11 @@ pub fn goal_seek(
         let d = v - tv;
         if best.is_none_or(|(_, bv): (f64, f64)| (bv - tv).abs() > d.abs()) {
             best = Some((kg, v));
-            undissolved_at_best = p.solutes.iter().find(|s| s.undissolved_g > 0.0).map(|s| s.id.clone());
+            undissolved_at_best = p
+                .solutes
+                .iter()
+                .find(|s| s.undissolved_g > 0.0)
+                .map(|s| s.id.clone());
         }
         if d == 0.0 {
             bracket = Some((kg, kg, 0.0, 0.0));

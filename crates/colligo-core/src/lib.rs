@@ -21,10 +21,10 @@ pub mod warnings;
 pub mod water;
 
 pub use composition::Composition;
-pub use formula::{Formula, Line};
 pub use error::{FormulaError, LibraryError, ModelError, ProjectError, SolverError};
+pub use formula::{Formula, Line};
+pub use library::Library;
 pub use models::ModelId;
 pub use project::Project;
 pub use properties::{Conditions, Properties, Wanted, evaluate};
 pub use warnings::Warning;
-pub use library::Library;

@@ -135,7 +135,10 @@ impl Default for Project {
             conditions: ProjectConditions::default(),
             model: ModelId::Auto,
             units: UnitPrefs::default(),
-            variants: vec![Formula::new("Variant 1", vec![crate::formula::Line::grams("water", 100.0)])],
+            variants: vec![Formula::new(
+                "Variant 1",
+                vec![crate::formula::Line::grams("water", 100.0)],
+            )],
             active_variant: 0,
             user_solutes: Vec::new(),
             user_ingredients: Vec::new(),
@@ -148,7 +151,10 @@ impl Default for Project {
 /// rather than a field error.
 fn peek_version(text: &str) -> Option<u32> {
     let i = text.find("format_version")?;
-    let rest = text[i + "format_version".len()..].trim_start().strip_prefix(':')?.trim_start();
+    let rest = text[i + "format_version".len()..]
+        .trim_start()
+        .strip_prefix(':')?
+        .trim_start();
     let digits: String = rest.chars().take_while(char::is_ascii_digit).collect();
     digits.parse().ok()
 }
@@ -159,7 +165,8 @@ impl Project {
     /// # Errors
     /// [`ProjectError`] naming the path and the problem.
     pub fn from_ron(text: &str, path: &str, lib: &Library) -> Result<Project, ProjectError> {
-        let opts = ron::Options::default().with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME);
+        let opts = ron::Options::default()
+            .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME);
         match peek_version(text) {
             Some(found) if found > FORMAT_VERSION || found == 0 => {
                 return Err(ProjectError::Version {
@@ -212,7 +219,9 @@ impl Project {
             path: self.name.clone(),
             message: e.to_string(),
         })?;
-        Ok(format!("// Colligo project file (RON), format version {FORMAT_VERSION}.\n{body}\n"))
+        Ok(format!(
+            "// Colligo project file (RON), format version {FORMAT_VERSION}.\n{body}\n"
+        ))
     }
 
     /// Writes the project atomically: a temporary file beside the target,
@@ -243,7 +252,9 @@ impl Project {
 
     /// The active variant (clamped).
     pub fn active(&self) -> &Formula {
-        &self.variants[self.active_variant.min(self.variants.len().saturating_sub(1))]
+        &self.variants[self
+            .active_variant
+            .min(self.variants.len().saturating_sub(1))]
     }
 
     /// Checks every field; `path` is used in messages.
@@ -266,7 +277,10 @@ impl Project {
         let c = &self.conditions;
         let finite_in = |v: f64, lo: f64, hi: f64| v.is_finite() && (lo..=hi).contains(&v);
         if !finite_in(c.temperature_c, -60.0, 200.0) {
-            return Err(invalid("conditions.temperature_c".into(), format!("{} °C is outside −60 to 200 °C", c.temperature_c)));
+            return Err(invalid(
+                "conditions.temperature_c".into(),
+                format!("{} °C is outside −60 to 200 °C", c.temperature_c),
+            ));
         }
         if !finite_in(c.storage_temperature_c, -60.0, 50.0) {
             return Err(invalid(
@@ -275,15 +289,25 @@ impl Project {
             ));
         }
         if !finite_in(c.pressure_kpa, 1.0, 1000.0) {
-            return Err(invalid("conditions.pressure_kpa".into(), format!("{} kPa is outside 1 to 1000 kPa", c.pressure_kpa)));
+            return Err(invalid(
+                "conditions.pressure_kpa".into(),
+                format!("{} kPa is outside 1 to 1000 kPa", c.pressure_kpa),
+            ));
         }
         if self.variants.is_empty() {
-            return Err(invalid("variants".into(), "a project needs at least one variant".into()));
+            return Err(invalid(
+                "variants".into(),
+                "a project needs at least one variant".into(),
+            ));
         }
         if self.active_variant >= self.variants.len() {
             return Err(invalid(
                 "active_variant".into(),
-                format!("{} but there are {} variants", self.active_variant, self.variants.len()),
+                format!(
+                    "{} but there are {} variants",
+                    self.active_variant,
+                    self.variants.len()
+                ),
             ));
         }
         let lib = self
@@ -295,11 +319,18 @@ impl Project {
                 return Err(invalid(format!("variants[{vi}].name"), "empty name".into()));
             }
             if !names.insert(v.name.as_str()) {
-                return Err(invalid(format!("variants[{vi}].name"), format!("duplicate variant name `{}`", v.name)));
+                return Err(invalid(
+                    format!("variants[{vi}].name"),
+                    format!("duplicate variant name `{}`", v.name),
+                ));
             }
             for (li, line) in v.lines.iter().enumerate() {
                 if lib.ingredient(&line.ingredient).is_none() {
-                    let e = lib.ingredient_or_suggest(&line.ingredient).err().map(|e| e.to_string()).unwrap_or_default();
+                    let e = lib
+                        .ingredient_or_suggest(&line.ingredient)
+                        .err()
+                        .map(|e| e.to_string())
+                        .unwrap_or_default();
                     return Err(invalid(format!("variants[{vi}].lines[{li}].ingredient"), e));
                 }
                 if !(line.amount.is_finite() && line.amount >= 0.0) {
@@ -309,7 +340,10 @@ impl Project {
                     ));
                 }
                 if line.unit == AmountUnit::Percent && line.amount >= 100.0 {
-                    return Err(invalid(format!("variants[{vi}].lines[{li}].amount"), "a share of the batch must be below 100 %".into()));
+                    return Err(invalid(
+                        format!("variants[{vi}].lines[{li}].amount"),
+                        "a share of the batch must be below 100 %".into(),
+                    ));
                 }
             }
         }
@@ -329,8 +363,14 @@ pub fn write_atomic(path: &Path, bytes: &[u8]) -> Result<(), ProjectError> {
         path: shown.clone(),
         message: e.to_string(),
     };
-    let dir = path.parent().filter(|d| !d.as_os_str().is_empty()).unwrap_or(Path::new("."));
-    let file_name = path.file_name().map(|n| n.to_string_lossy().to_string()).unwrap_or_else(|| "project".into());
+    let dir = path
+        .parent()
+        .filter(|d| !d.as_os_str().is_empty())
+        .unwrap_or(Path::new("."));
+    let file_name = path
+        .file_name()
+        .map(|n| n.to_string_lossy().to_string())
+        .unwrap_or_else(|| "project".into());
     let tmp = dir.join(format!(".{file_name}.{}.tmp", std::process::id()));
     let result = (|| {
         let mut f = std::fs::File::create(&tmp)?;

@@ -163,7 +163,12 @@ fn check_temperature(t_k: f64) -> Result<(), ModelError> {
 ///
 /// # Errors
 /// No water; temperature out of range.
-pub fn water_activity(lib: &Library, comp: &Composition, model: ModelId, t_k: f64) -> Result<f64, ModelError> {
+pub fn water_activity(
+    lib: &Library,
+    comp: &Composition,
+    model: ModelId,
+    t_k: f64,
+) -> Result<f64, ModelError> {
     check_temperature(t_k)?;
     if comp.water_kg <= 0.0 {
         return Err(ModelError::NoWater);
@@ -190,7 +195,11 @@ pub struct WarmStart {
 ///
 /// # Errors
 /// [`ModelError::Undefined`] when no ice forms above −60 °C; solver errors.
-pub fn freezing_point(ev: &mut Evaluator<'_>, before: &[f64], warm: Option<f64>) -> Result<f64, ModelError> {
+pub fn freezing_point(
+    ev: &mut Evaluator<'_>,
+    before: &[f64],
+    warm: Option<f64>,
+) -> Result<f64, ModelError> {
     let mode = CapMode::Freezing {
         before: before.to_vec(),
     };
@@ -201,7 +210,11 @@ pub fn freezing_point(ev: &mut Evaluator<'_>, before: &[f64], warm: Option<f64>)
 ///
 /// # Errors
 /// As [`freezing_point`].
-pub fn freezing_point_with(ev: &mut Evaluator<'_>, mode: &CapMode, warm: Option<f64>) -> Result<f64, ModelError> {
+pub fn freezing_point_with(
+    ev: &mut Evaluator<'_>,
+    mode: &CapMode,
+    warm: Option<f64>,
+) -> Result<f64, ModelError> {
     let w = ev.water_kg;
     let mut g = |t: f64| ev.ln_aw(t, w, mode) - water::ice_equilibrium_ln_aw(t);
     let x0 = match warm {
@@ -275,16 +288,13 @@ pub fn ice_fraction(
             fully_frozen: false,
         });
     }
-    // Unknown u = ln(w / W), the liquid share of the water.
-    let u_min = (1e-9f64).ln();
-    let mut f = |u: f64| ev.ln_aw(t_k, w_total * u.exp(), &mode) - ln_ice;
-    let f_min = f(u_min);
-    if f_min > 0.0 {
-        // Even a trace of liquid would be above ice equilibrium: past the eutectic.
-        let n = before.len();
-        let mut undissolved = vec![0.0; n];
-        undissolved.copy_from_slice(before);
-        let bound = ev.hydrate_water_kg(&undissolved).min(w_total);
+    // When every dissolved solute can crystallise, the freeze-concentrate
+    // ends at saturation in all of them; if even that liquid is above ice
+    // equilibrium the eutectic has been passed and no liquid remains.
+    if let Some(u_sat) = all_saturated_u(ev, before, t_k)
+        && ev.ln_aw(t_k, w_total * u_sat.exp(), &mode) - ln_ice > 0.0
+    {
+        let bound = ev.hydrate_water_kg(before).min(w_total);
         let ice = w_total - bound;
         warm.ln_liquid = None;
         return Ok(IcePoint {
@@ -295,23 +305,57 @@ pub fn ice_fraction(
             fully_frozen: true,
         });
     }
+    // Unknown u = ln(w / W), the liquid share of the water. f rises with u.
     let mut f = |u: f64| ev.ln_aw(t_k, w_total * u.exp(), &mode) - ln_ice;
-    let x0 = warm.ln_liquid.unwrap_or(-0.5);
+    // Bracket from above: step the liquid share down from the last answer
+    // (or from half the water) until the liquid is below ice equilibrium.
+    let u_floor = (1e-6f64).ln();
+    let start = warm.ln_liquid.unwrap_or(-0.7).min(-1e-6);
+    let mut hi = 0.0;
+    let mut lo = start;
+    let mut f_lo = f(lo);
+    let mut step = 0.35;
+    while f_lo > 0.0 {
+        hi = lo;
+        if lo <= u_floor {
+            return Err(ModelError::Undefined {
+                property: "ice fraction",
+                reason: format!(
+                    "no ice equilibrium found above a liquid share of 1e-6 at {t_c:.1} °C"
+                ),
+            });
+        }
+        lo = (lo - step).max(u_floor);
+        step *= 2.0;
+        f_lo = f(lo);
+    }
+    let x0 = if warm.ln_liquid.is_some() {
+        start
+    } else {
+        0.5 * (lo + hi)
+    };
     let opts = SolveOptions {
         x_tol: 1e-10,
         f_tol: 1e-12,
         max_iter: 100,
     };
-    let (root, slope) = solve_warm(&mut f, u_min, 0.0, x0, warm.slope, opts).map_err(|e| ModelError::Solver {
-        property: "ice fraction",
-        source: e,
-    })?;
+    let (root, slope) =
+        solve_warm(&mut f, lo, hi, x0.clamp(lo, hi), warm.slope, opts).map_err(|e| {
+            ModelError::Solver {
+                property: "ice fraction",
+                source: e,
+            }
+        })?;
     warm.ln_liquid = Some(root.x);
     warm.slope = slope;
     let liquid = w_total * root.x.exp();
     // Crystal hydrate formed above the eutectic binds water too.
     ev.dissolve(t_k, liquid, &mode);
-    let undissolved: Vec<f64> = before.iter().zip(ev_dissolved(ev)).map(|(b, d)| (b - d).max(0.0)).collect();
+    let undissolved: Vec<f64> = before
+        .iter()
+        .zip(ev_dissolved(ev))
+        .map(|(b, d)| (b - d).max(0.0))
+        .collect();
     let bound = ev.hydrate_water_kg(&undissolved);
     let ice = (w_total - liquid - bound).max(0.0);
     Ok(IcePoint {
@@ -323,6 +367,25 @@ pub fn ice_fraction(
     })
 }
 
+/// ln(w/W) at which every dissolved solute would be at half its
+/// saturation liquid, when all of them can crystallise on freezing; `None`
+/// when some solute stays dissolved or has no solubility limit.
+fn all_saturated_u(ev: &mut Evaluator<'_>, before: &[f64], t_k: f64) -> Option<f64> {
+    ev.set_t(t_k);
+    let mut w_sat = f64::INFINITY;
+    for (i, c) in ev.comps.iter().enumerate() {
+        if before[i] <= 0.0 {
+            continue;
+        }
+        let s = ev.solubility(i);
+        if c.stays_dissolved_on_freezing || !s.is_finite() || s <= 0.0 {
+            return None;
+        }
+        w_sat = w_sat.min(before[i] / s);
+    }
+    (w_sat.is_finite() && w_sat > 0.0).then(|| (0.5 * w_sat / ev.water_kg).ln().min(0.0))
+}
+
 fn ev_dissolved(ev: &Evaluator<'_>) -> Vec<f64> {
     ev.last_dissolved().to_vec()
 }
@@ -331,7 +394,11 @@ fn ev_dissolved(ev: &Evaluator<'_>) -> Vec<f64> {
 ///
 /// # Errors
 /// No boiling point below 200 °C; solver errors.
-pub fn boiling_point(ev: &mut Evaluator<'_>, p_pa: f64, warm: Option<f64>) -> Result<f64, ModelError> {
+pub fn boiling_point(
+    ev: &mut Evaluator<'_>,
+    p_pa: f64,
+    warm: Option<f64>,
+) -> Result<f64, ModelError> {
     let w = ev.water_kg;
     let lib = ev.library();
     let ln_p = p_pa.ln();
@@ -355,7 +422,18 @@ pub fn boiling_point(ev: &mut Evaluator<'_>, p_pa: f64, warm: Option<f64>) -> Re
     let x0 = warm.unwrap_or(t_pure + 0.5);
     let slope = water::dln_p_sat_liquid_dt(x0);
     let lo = (t_pure - 80.0).max(T_FREEZE_MIN);
-    match solve_warm(&mut h, lo, T_BOIL_MAX, x0, slope, SolveOptions { x_tol: 1e-7, f_tol: 1e-12, max_iter: 100 }) {
+    match solve_warm(
+        &mut h,
+        lo,
+        T_BOIL_MAX,
+        x0,
+        slope,
+        SolveOptions {
+            x_tol: 1e-7,
+            f_tol: 1e-12,
+            max_iter: 100,
+        },
+    ) {
         Ok((root, _)) => Ok(root.x),
         Err(SolverError::NoBracket { .. }) => Err(ModelError::Undefined {
             property: "boiling point",
@@ -424,7 +502,11 @@ pub fn evaluate(
     let mut dissolved_kg = 0.0;
     for (i, c) in ev.comps.iter().enumerate() {
         let s = &lib.solutes[c.solute];
-        let m_kg = comp.solutes.iter().find(|a| a.solute == c.solute).map_or(0.0, |a| a.kg / a.mol);
+        let m_kg = comp
+            .solutes
+            .iter()
+            .find(|a| a.solute == c.solute)
+            .map_or(0.0, |a| a.kg / a.mol);
         let d_kg = dissolved[i] * m_kg;
         dissolved_kg += d_kg;
         solutes.push(SoluteReport {
@@ -460,14 +542,26 @@ pub fn evaluate(
         let ts = cond.storage_temperature_k;
         if (T_FREEZE_MIN..=T_ZERO_C + 50.0).contains(&ts) {
             let mut warm = WarmStart::default();
-            match ice_fraction(&mut ev, &dissolved, comp.total_kg(), ts.min(T_ZERO_C), &mut warm) {
+            match ice_fraction(
+                &mut ev,
+                &dissolved,
+                comp.total_kg(),
+                ts.min(T_ZERO_C),
+                &mut warm,
+            ) {
                 Ok(p) => {
                     if p.fully_frozen {
                         warnings.push(Warning::Eutectic {
                             t_c: p.temperature_c,
                         });
                     } else if p.ice_fraction_of_water > 0.0 {
-                        supersaturation_warnings(&mut ev, &dissolved, ts, p.ice_fraction_of_water, &mut warnings);
+                        supersaturation_warnings(
+                            &mut ev,
+                            &dissolved,
+                            ts,
+                            p.ice_fraction_of_water,
+                            &mut warnings,
+                        );
                     }
                     ice = Some(p.ice_fraction_of_water);
                 }
@@ -540,6 +634,7 @@ fn supersaturation_warnings(
 /// Validity and solubility warnings for one evaluation.
 fn diagnose(ev: &mut Evaluator<'_>, t_k: f64, w: f64, dissolved: &[f64]) -> Vec<Warning> {
     let lib = ev.library();
+    let ln_aw_total = ev.ln_aw_of(t_k, w, dissolved);
     let model = ev.model();
     let t_c = t_k - T_ZERO_C;
     let mut out = Vec::new();
@@ -569,10 +664,27 @@ fn diagnose(ev: &mut Evaluator<'_>, t_k: f64, w: f64, dissolved: &[f64]) -> Vec<
             }
         }
         let m = dissolved[i] / w;
-        // Which molality the model's parameters are used at.
-        let m_used = match model {
-            ModelId::Zsr => ev.zsr_molality(i).unwrap_or(m).max(m),
-            _ => m,
+        // Where each binary is used, and whether the solute matters enough
+        // for its parameters' range to matter (≥ 5 % of the result).
+        let (m_used, basis, significant) = match model {
+            ModelId::Zsr => {
+                let m0 = ev.zsr_molality(i).unwrap_or(m).max(m);
+                let term = if m0 > 0.0 { m / m0 } else { 0.0 };
+                (
+                    m0,
+                    "binary at the mixture's a_w (ZSR)",
+                    term >= 0.05 || ev.comps.len() == 1,
+                )
+            }
+            ModelId::Ross => {
+                let share = if ln_aw_total != 0.0 {
+                    ev.binary(i).ln_aw(m) / ln_aw_total
+                } else {
+                    1.0
+                };
+                (m, "own molality (Ross)", share >= 0.05)
+            }
+            _ => (m, "own molality", true),
         };
         match (model, c.role) {
             (ModelId::Ideal, _) => {}
@@ -584,13 +696,13 @@ fn diagnose(ev: &mut Evaluator<'_>, t_k: f64, w: f64, dissolved: &[f64]) -> Vec<
             (ModelId::Pitzer, Role::NonElectrolyte) => out.push(Warning::TreatedAsIdeal {
                 solute: id.clone(),
                 model,
-                why: "no Pitzer neutral-species parameters; counted ideally on the molality scale".into(),
+                why: "no Pitzer neutral-species parameters; counted ideally (Raoult)".into(),
             }),
             (ModelId::Norrish | ModelId::Pitzer, Role::Volatile) => out.push(Warning::VolatileByRoss {
                 solute: id.clone(),
                 model,
             }),
-            _ => binary_validity(lib, c.solute, model, m_used, t_c, &mut out),
+            _ => binary_validity(lib, c.solute, model, m_used, basis, significant, t_c, &mut out),
         }
     }
     if model == ModelId::Ideal {
@@ -605,10 +717,24 @@ fn diagnose(ev: &mut Evaluator<'_>, t_k: f64, w: f64, dissolved: &[f64]) -> Vec<
 }
 
 /// Validity checks of one solute's parameters at molality `m`.
-fn binary_validity(lib: &Library, solute: usize, model: ModelId, m: f64, t_c: f64, out: &mut Vec<Warning>) {
+#[allow(clippy::too_many_arguments)]
+fn binary_validity(
+    lib: &Library,
+    solute: usize,
+    model: ModelId,
+    m: f64,
+    basis: &str,
+    significant: bool,
+    t_c: f64,
+    out: &mut Vec<Warning>,
+) {
     let s = &lib.solutes[solute];
     let id = s.id().to_string();
-    match best_kind(lib, solute) {
+    let kind = best_kind(lib, solute);
+    if !significant && !matches!(kind, BinaryKind::Ideal) {
+        return;
+    }
+    match kind {
         BinaryKind::Pitzer(pair) => {
             let p = &lib.pitzer.pairs[pair];
             if m > p.max_molality * (1.0 + 1e-9) {
@@ -618,6 +744,7 @@ fn binary_validity(lib: &Library, solute: usize, model: ModelId, m: f64, t_c: f6
                     value: m,
                     max: p.max_molality,
                     unit: "mol/kg".into(),
+                    basis: basis.into(),
                 });
             }
             if t_c < p.t_range_c.0 - 0.5 || t_c > p.t_range_c.1 + 0.5 {
@@ -639,6 +766,7 @@ fn binary_validity(lib: &Library, solute: usize, model: ModelId, m: f64, t_c: f6
                         value: x,
                         max: n.max_mole_fraction,
                         unit: "mole fraction".into(),
+                        basis: basis.into(),
                     });
                 }
                 if t_c < n.t_range_c.0 - 0.5 || t_c > n.t_range_c.1 + 0.5 {
@@ -739,7 +867,9 @@ pub fn freezing_curve(
     for &t in temps_k {
         let p = ice_fraction(&mut ev, &before, total, t.min(T_ZERO_C), &mut warm)?;
         if p.fully_frozen && !eutectic_noted {
-            warnings.push(Warning::Eutectic { t_c: p.temperature_c });
+            warnings.push(Warning::Eutectic {
+                t_c: p.temperature_c,
+            });
             eutectic_noted = true;
         }
         points.push(IcePoint {
@@ -752,7 +882,10 @@ pub fn freezing_curve(
         .filter(|p| !p.fully_frozen && p.ice_fraction_of_water > 0.0)
         .min_by(|a, b| a.temperature_c.total_cmp(&b.temperature_c))
     {
-        let (t, f) = (coldest.temperature_c + T_ZERO_C, coldest.ice_fraction_of_water);
+        let (t, f) = (
+            coldest.temperature_c + T_ZERO_C,
+            coldest.ice_fraction_of_water,
+        );
         supersaturation_warnings(&mut ev, &before, t, f, &mut warnings);
     }
     Ok(FreezingCurve {

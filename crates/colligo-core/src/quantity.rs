@@ -172,7 +172,8 @@ pub fn parse_amount(text: &str) -> Result<Amount, FormulaError> {
         return Err(bad("empty"));
     }
     let (value, rest) = split_number(text).ok_or_else(|| bad("not a number"))?;
-    let unit = AmountUnit::parse(rest).ok_or_else(|| bad("unknown unit (use g, kg, mg, oz, lb or %)"))?;
+    let unit =
+        AmountUnit::parse(rest).ok_or_else(|| bad("unknown unit (use g, kg, mg, oz, lb or %)"))?;
     if !value.is_finite() {
         return Err(bad("not a finite number"));
     }
@@ -254,7 +255,12 @@ pub fn parse_temperature(text: &str) -> Result<f64, FormulaError> {
         reason: reason.to_string(),
     };
     let (v, rest) = split_number(text).ok_or_else(|| bad("not a number"))?;
-    let unit = match rest.trim().trim_start_matches('°').to_ascii_lowercase().as_str() {
+    let unit = match rest
+        .trim()
+        .trim_start_matches('°')
+        .to_ascii_lowercase()
+        .as_str()
+    {
         "" | "c" | "degc" | "celsius" => TemperatureUnit::Celsius,
         "f" | "degf" | "fahrenheit" => TemperatureUnit::Fahrenheit,
         "k" | "kelvin" => TemperatureUnit::Kelvin,
@@ -357,7 +363,11 @@ pub fn parse_pressure(text: &str) -> Result<f64, FormulaError> {
                 "atm" => PressureUnit::Atm,
                 "mmhg" | "torr" => PressureUnit::Mmhg,
                 "psi" => PressureUnit::Psi,
-                _ => return Err(bad("unknown unit (use kPa, hPa, Pa, atm, bar, mmHg, psi, or an altitude in m or ft)")),
+                _ => {
+                    return Err(bad(
+                        "unknown unit (use kPa, hPa, Pa, atm, bar, mmHg, psi, or an altitude in m or ft)",
+                    ));
+                }
             };
             v * unit.pa_per_unit()
         }
@@ -395,11 +405,16 @@ mod tests {
         let a = parse_amount("50g").unwrap_or_else(|e| panic!("{e}"));
         assert_eq!(a, Amount::grams(50.0));
         assert_eq!(parse_amount("1.5 kg").map(|a| a.kg()), Ok(Some(1.5)));
-        assert_eq!(parse_amount("12,5 %").map(|a| a.unit), Ok(AmountUnit::Percent));
+        assert_eq!(
+            parse_amount("12,5 %").map(|a| a.unit),
+            Ok(AmountUnit::Percent)
+        );
         assert_eq!(parse_amount("2lb").map(|a| a.kg()), Ok(Some(0.907_184_74)));
         assert_eq!(parse_amount("3").map(|a| a.unit), Ok(AmountUnit::G));
         assert_eq!(parse_amount("1e2 g").map(|a| a.value), Ok(100.0));
-        for bad in ["", "abc", "-5 g", "5 stone", "inf", "NaN g", "100 %", "5..5 g", "g"] {
+        for bad in [
+            "", "abc", "-5 g", "5 stone", "inf", "NaN g", "100 %", "5..5 g", "g",
+        ] {
             assert!(parse_amount(bad).is_err(), "{bad}");
         }
     }
@@ -419,7 +434,10 @@ mod tests {
     #[test]
     fn pressures() {
         let close = |a: f64, b: f64| (a - b).abs() < 1e-6 * b;
-        assert!(close(parse_pressure("101.325kPa").unwrap_or(0.0), 101_325.0));
+        assert!(close(
+            parse_pressure("101.325kPa").unwrap_or(0.0),
+            101_325.0
+        ));
         assert!(close(parse_pressure("1 atm").unwrap_or(0.0), 101_325.0));
         assert!(close(parse_pressure("0 m").unwrap_or(0.0), 101_325.0));
         // ISO 2533 standard atmosphere at 1000 m: 89 874.6 Pa (table value).

@@ -52,16 +52,31 @@ pub fn brent(
 ) -> Result<Root, SolverError> {
     let (mut a, mut b, mut fa, mut fb) = (a, b, fa, fb);
     if !fa.is_finite() || !fb.is_finite() {
-        return Err(SolverError::NonFinite { x: if fa.is_finite() { b } else { a } });
+        return Err(SolverError::NonFinite {
+            x: if fa.is_finite() { b } else { a },
+        });
     }
     if fa == 0.0 {
-        return Ok(Root { x: a, f: 0.0, evaluations: 0 });
+        return Ok(Root {
+            x: a,
+            f: 0.0,
+            evaluations: 0,
+        });
     }
     if fb == 0.0 {
-        return Ok(Root { x: b, f: 0.0, evaluations: 0 });
+        return Ok(Root {
+            x: b,
+            f: 0.0,
+            evaluations: 0,
+        });
     }
     if fa.signum() == fb.signum() {
-        return Err(SolverError::NoBracket { lo: a, hi: b, f_lo: fa, f_hi: fb });
+        return Err(SolverError::NoBracket {
+            lo: a,
+            hi: b,
+            f_lo: fa,
+            f_hi: fb,
+        });
     }
     let mut c = a;
     let mut fc = fa;
@@ -86,7 +101,11 @@ pub fn brent(
         let tol = 2.0 * f64::EPSILON * b.abs() + 0.5 * opts.x_tol;
         let m = 0.5 * (c - b);
         if m.abs() <= tol || fb.abs() <= opts.f_tol {
-            return Ok(Root { x: b, f: fb, evaluations: evals });
+            return Ok(Root {
+                x: b,
+                f: fb,
+                evaluations: evals,
+            });
         }
         if e.abs() >= tol && fa.abs() > fb.abs() {
             let s = fb / fa;
@@ -125,7 +144,11 @@ pub fn brent(
             return Err(SolverError::NonFinite { x: b });
         }
     }
-    Err(SolverError::NotConverged { iterations: opts.max_iter, x: b, f: fb })
+    Err(SolverError::NotConverged {
+        iterations: opts.max_iter,
+        x: b,
+        f: fb,
+    })
 }
 
 /// Root of a monotonic `f` on `[lo, hi]`, starting from a guess `x0` (a
@@ -161,7 +184,14 @@ pub fn solve_warm(
     let mut prev: Option<(f64, f64)> = None;
     for _ in 0..12 {
         if fx.abs() <= opts.f_tol {
-            return Ok((Root { x, f: fx, evaluations: evals }, slope));
+            return Ok((
+                Root {
+                    x,
+                    f: fx,
+                    evaluations: evals,
+                },
+                slope,
+            ));
         }
         if fx < 0.0 {
             neg = Some((x, fx));
@@ -187,7 +217,14 @@ pub fn solve_warm(
         }
         if (next - x).abs() <= opts.x_tol {
             let fn_ = eval(next, &mut evals);
-            return Ok((Root { x: next, f: fn_, evaluations: evals }, slope));
+            return Ok((
+                Root {
+                    x: next,
+                    f: fn_,
+                    evaluations: evals,
+                },
+                slope,
+            ));
         }
         let fnext = eval(next, &mut evals);
         if !fnext.is_finite() {
@@ -207,7 +244,14 @@ pub fn solve_warm(
         }
     }
     if fx.abs() <= opts.f_tol {
-        return Ok((Root { x, f: fx, evaluations: evals }, slope));
+        return Ok((
+            Root {
+                x,
+                f: fx,
+                evaluations: evals,
+            },
+            slope,
+        ));
     }
     let (a, fa, b, fb) = match (neg, pos) {
         (Some(n), Some(p)) => (n.0, n.1, p.0, p.1),
@@ -224,12 +268,24 @@ pub fn solve_warm(
             match pts.windows(2).find(|w| w[0].1.signum() != w[1].1.signum()) {
                 Some(w) => (w[0].0, w[0].1, w[1].0, w[1].1),
                 None => {
-                    return Err(SolverError::NoBracket { lo, hi, f_lo: flo, f_hi: fhi });
+                    return Err(SolverError::NoBracket {
+                        lo,
+                        hi,
+                        f_lo: flo,
+                        f_hi: fhi,
+                    });
                 }
             }
         }
     };
-    let root = brent(|x| f(x), a.min(b), a.max(b), if a < b { fa } else { fb }, if a < b { fb } else { fa }, opts)?;
+    let root = brent(
+        |x| f(x),
+        a.min(b),
+        a.max(b),
+        if a < b { fa } else { fb },
+        if a < b { fb } else { fa },
+        opts,
+    )?;
     Ok((
         Root {
             evaluations: root.evaluations + evals,
@@ -246,7 +302,8 @@ mod tests {
     #[test]
     fn brent_finds_cubic_root() {
         let f = |x: f64| x * x * x - 2.0;
-        let r = brent(f, 0.0, 2.0, f(0.0), f(2.0), SolveOptions::default()).unwrap_or_else(|e| panic!("{e}"));
+        let r = brent(f, 0.0, 2.0, f(0.0), f(2.0), SolveOptions::default())
+            .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 2f64.cbrt()).abs() < 1e-9);
         assert!(r.evaluations < 20, "{}", r.evaluations);
     }
@@ -268,7 +325,8 @@ mod tests {
     #[test]
     fn warm_start_converges_in_few_steps() {
         let f = |x: f64| (x - 0.3).exp() - 1.0;
-        let (r, _) = solve_warm(f, -5.0, 5.0, 0.29, 1.0, SolveOptions::default()).unwrap_or_else(|e| panic!("{e}"));
+        let (r, _) = solve_warm(f, -5.0, 5.0, 0.29, 1.0, SolveOptions::default())
+            .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 0.3).abs() < 1e-9);
         assert!(r.evaluations <= 5, "{}", r.evaluations);
     }
@@ -276,7 +334,8 @@ mod tests {
     #[test]
     fn warm_start_survives_a_bad_guess() {
         let f = |x: f64| x.atan() - 1.2;
-        let (r, _) = solve_warm(f, -50.0, 50.0, -40.0, 0.0, SolveOptions::default()).unwrap_or_else(|e| panic!("{e}"));
+        let (r, _) = solve_warm(f, -50.0, 50.0, -40.0, 0.0, SolveOptions::default())
+            .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 1.2f64.tan()).abs() < 1e-8);
     }
 

@@ -42,7 +42,9 @@ pub fn with_amount(formula: &Formula, id: &str, kg: f64) -> Formula {
 /// `n` evenly spaced amounts from `from` to `to` inclusive (n ≥ 2).
 pub fn linspace(from: f64, to: f64, n: usize) -> Vec<f64> {
     let n = n.max(2);
-    (0..n).map(|i| from + (to - from) * i as f64 / (n - 1) as f64).collect()
+    (0..n)
+        .map(|i| from + (to - from) * i as f64 / (n - 1) as f64)
+        .collect()
 }
 
 /// a_w and freezing point along a sweep (the fast path behind the plots).
@@ -85,7 +87,12 @@ fn prepare<'l>(
     } else {
         model
     };
-    let solutes: Vec<usize> = union.solutes.iter().filter(|s| s.mol > 0.0).map(|s| s.solute).collect();
+    let solutes: Vec<usize> = union
+        .solutes
+        .iter()
+        .filter(|s| s.mol > 0.0)
+        .map(|s| s.solute)
+        .collect();
     Ok((comps, Evaluator::with_solutes(lib, &solutes, resolved)))
 }
 

@@ -60,6 +60,8 @@ pub enum Warning {
         max: f64,
         /// Unit of value and max.
         unit: String,
+        /// Where the value is taken (own molality, ZSR binary molality).
+        basis: String,
     },
     /// Temperature beyond the data behind the parameters.
     BeyondValidatedTemperature {
@@ -150,7 +152,11 @@ impl fmt::Display for Warning {
                 "{solute} exceeds its solubility ({solubility_g_per_100g_water:.1} g per 100 g water at {t_c:.1} °C): \
                  {undissolved_g:.3} g stays undissolved and may crystallise; a_w is that of the saturated solution"
             ),
-            Warning::SolubilityExtrapolated { solute, t_c, range_c } => write!(
+            Warning::SolubilityExtrapolated {
+                solute,
+                t_c,
+                range_c,
+            } => write!(
                 f,
                 "{solute}: solubility extrapolated to {t_c:.1} °C (data cover {:.0} to {:.0} °C)",
                 range_c.0, range_c.1
@@ -168,9 +174,10 @@ impl fmt::Display for Warning {
                 value,
                 max,
                 unit,
+                basis,
             } => write!(
                 f,
-                "{solute}: {value:.3} {unit} is outside the validated range of the {model} parameters (up to {max:.3} {unit})"
+                "{solute}: {value:.3} {unit} ({basis}) is beyond the data behind its {model} parameters (up to {max:.3} {unit})"
             ),
             Warning::BeyondValidatedTemperature {
                 solute,
@@ -179,14 +186,16 @@ impl fmt::Display for Warning {
                 range_c,
             } => write!(
                 f,
-                "{solute}: {t_c:.1} °C is outside the temperature range of the {model} parameters ({:.0} to {:.0} °C)",
+                "{solute}: {t_c:.1} °C is outside the temperature range of the data behind its {model} parameters ({:.1} to {:.1} °C)",
                 range_c.0, range_c.1
             ),
             Warning::VolatileByRoss { solute, model } => write!(
                 f,
                 "{solute} is volatile: its effect on water is combined by Ross's rule in the {model} model"
             ),
-            Warning::IdealConcentrated { solute_mole_fraction } => write!(
+            Warning::IdealConcentrated {
+                solute_mole_fraction,
+            } => write!(
                 f,
                 "the ideal model ignores solute interactions; at a solute mole fraction of {solute_mole_fraction:.3} \
                  expect real a_w to differ noticeably"

@@ -255,7 +255,10 @@ mod tests {
         for t in [250.0, 268.0, 273.0, 300.0, 373.0, 450.0] {
             let h = 1e-4;
             let fd = (p_sat_liquid(t + h).ln() - p_sat_liquid(t - h).ln()) / (2.0 * h);
-            assert!((fd - dln_p_sat_liquid_dt(t)).abs() < 1e-7 * fd.abs().max(1.0), "{t}");
+            assert!(
+                (fd - dln_p_sat_liquid_dt(t)).abs() < 1e-7 * fd.abs().max(1.0),
+                "{t}"
+            );
         }
         for t in [230.0, 250.0, 270.0] {
             let h = 1e-4;

@@ -34,13 +34,24 @@ const FAST_KEYS: [&str; 10] = [
 ///
 /// # Errors
 /// A header that names no `name` column or an unknown ingredient.
-pub fn run_batch(lib: &Library, text: &str, keys: &[&str], model: ModelId, cond: &Conditions) -> Result<String> {
-    let mut lines = text.lines().enumerate().filter(|(_, l)| !l.trim().is_empty());
+pub fn run_batch(
+    lib: &Library,
+    text: &str,
+    keys: &[&str],
+    model: ModelId,
+    cond: &Conditions,
+) -> Result<String> {
+    let mut lines = text
+        .lines()
+        .enumerate()
+        .filter(|(_, l)| !l.trim().is_empty());
     let Some((_, header)) = lines.next() else {
         bail!("empty file");
     };
     let header = split_csv(header.trim_start_matches('\u{feff}'));
-    let name_col = header.iter().position(|h| h.trim().eq_ignore_ascii_case("name"));
+    let name_col = header
+        .iter()
+        .position(|h| h.trim().eq_ignore_ascii_case("name"));
     let Some(name_col) = name_col else {
         bail!("the header needs a `name` column");
     };
@@ -85,11 +96,18 @@ pub fn run_batch(lib: &Library, text: &str, keys: &[&str], model: ModelId, cond:
                 if cell.is_empty() {
                     continue;
                 }
-                let g: f64 = cell
-                    .parse()
-                    .map_err(|_| format!("`{cell}` in column {} is not a number of grams", header[i].trim()))?;
+                let g: f64 = cell.parse().map_err(|_| {
+                    format!(
+                        "`{cell}` in column {} is not a number of grams",
+                        header[i].trim()
+                    )
+                })?;
                 if !(g.is_finite() && g >= 0.0) {
-                    return Err(format!("{} g of {} is not a mass ≥ 0", cell, header[i].trim()));
+                    return Err(format!(
+                        "{} g of {} is not a mass ≥ 0",
+                        cell,
+                        header[i].trim()
+                    ));
                 }
                 comp.add_ingredient(lib, ing, g / 1000.0);
             }
@@ -100,8 +118,17 @@ pub fn run_batch(lib: &Library, text: &str, keys: &[&str], model: ModelId, cond:
                 if !(properties::T_FREEZE_MIN..=properties::T_BOIL_MAX).contains(&t) {
                     return Err(format!("temperature {:.1} °C out of range", t - T_ZERO_C));
                 }
-                let resolved = if model == ModelId::Auto { auto_choice(lib, &comp).0 } else { model };
-                let set: Vec<usize> = comp.solutes.iter().filter(|s| s.mol > 0.0).map(|s| s.solute).collect();
+                let resolved = if model == ModelId::Auto {
+                    auto_choice(lib, &comp).0
+                } else {
+                    model
+                };
+                let set: Vec<usize> = comp
+                    .solutes
+                    .iter()
+                    .filter(|s| s.mol > 0.0)
+                    .map(|s| s.solute)
+                    .collect();
                 let ev = cache
                     .entry((resolved, set))
                     .or_insert_with_key(|(m, s)| Evaluator::with_solutes(lib, s, *m));
@@ -124,14 +151,17 @@ pub fn run_batch(lib: &Library, text: &str, keys: &[&str], model: ModelId, cond:
                         "osmolality_mosmol_per_kg" => -ln_aw / M_W * 1000.0,
                         "osmotic_pressure_mpa" => -rt_over_v * ln_aw,
                         "water_percent" => 100.0 * comp.water_kg / total,
-                        "soluble_solids_percent" => 100.0 * dissolved_kg / (comp.water_kg + dissolved_kg),
+                        "soluble_solids_percent" => {
+                            100.0 * dissolved_kg / (comp.water_kg + dissolved_kg)
+                        }
                         "temperature_c" => t - T_ZERO_C,
                         "storage_temperature_c" => cond.storage_temperature_k - T_ZERO_C,
                         _ => f64::NAN,
                     });
                 }
             } else {
-                let p = properties::evaluate(lib, &comp, model, cond, wanted).map_err(|e| e.to_string())?;
+                let p = properties::evaluate(lib, &comp, model, cond, wanted)
+                    .map_err(|e| e.to_string())?;
                 for (v, k) in values.iter_mut().zip(keys) {
                     *v = report::scalar(&p, k);
                 }

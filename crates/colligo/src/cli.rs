@@ -75,7 +75,9 @@ impl Args {
                         Some(v) => v,
                         None => {
                             i += 1;
-                            args.get(i).cloned().ok_or_else(|| anyhow!("--{name} needs a value"))?
+                            args.get(i)
+                                .cloned()
+                                .ok_or_else(|| anyhow!("--{name} needs a value"))?
                         }
                     };
                     if a.options.insert(name.to_string(), v).is_some() {
@@ -158,7 +160,9 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
     let (lib, mut formula, mut cond, mut model, mut title) = match args.positional.first() {
         Some(path) => {
             let p = Project::load(Path::new(path), base)?;
-            let lib = p.library(base).with_context(|| format!("{path}: user-defined records"))?;
+            let lib = p
+                .library(base)
+                .with_context(|| format!("{path}: user-defined records"))?;
             let variant = match args.get("variant") {
                 Some(name) => p
                     .variants
@@ -168,7 +172,11 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
                     .ok_or_else(|| {
                         anyhow!(
                             "{path}: no variant named `{name}` (variants: {})",
-                            p.variants.iter().map(|v| v.name.as_str()).collect::<Vec<_>>().join(", ")
+                            p.variants
+                                .iter()
+                                .map(|v| v.name.as_str())
+                                .collect::<Vec<_>>()
+                                .join(", ")
                         )
                     })?,
                 None => p.active().clone(),
@@ -185,7 +193,10 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
         ),
     };
     if args.positional.len() > 1 {
-        bail!("only one project file can be given (got {})", args.positional.join(" "));
+        bail!(
+            "only one project file can be given (got {})",
+            args.positional.join(" ")
+        );
     }
     if let Some(mix) = args.get("mix") {
         formula = Formula::new("mix", parse_mix(mix)?);
@@ -217,12 +228,23 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
 }
 
 fn eval(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
-    args.only(&["variant", "mix", "temperature", "pressure", "storage", "model"])?;
+    args.only(&[
+        "variant",
+        "mix",
+        "temperature",
+        "pressure",
+        "storage",
+        "model",
+    ])?;
     let j = job(base, args)?;
     let comp = j.formula.composition(&j.lib)?;
     let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
     if args.has("json") {
-        writeln!(out, "{}", serde_json::to_string_pretty(&report::properties_json(&p))?)?;
+        writeln!(
+            out,
+            "{}",
+            serde_json::to_string_pretty(&report::properties_json(&p))?
+        )?;
     } else {
         write!(out, "{}", report::properties_table(&p, &j.title))?;
     }
@@ -240,13 +262,27 @@ fn number(args: &Args, name: &str, default: f64) -> Result<f64> {
                 .trim()
                 .parse::<f64>()
                 .map_err(|_| anyhow!("--{name}: `{s}` is not a number"))?;
-            if v.is_finite() { Ok(v) } else { bail!("--{name}: `{s}` is not finite") }
+            if v.is_finite() {
+                Ok(v)
+            } else {
+                bail!("--{name}: `{s}` is not finite")
+            }
         }
     }
 }
 
 fn freeze(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
-    args.only(&["variant", "mix", "temperature", "pressure", "storage", "model", "from", "to", "step"])?;
+    args.only(&[
+        "variant",
+        "mix",
+        "temperature",
+        "pressure",
+        "storage",
+        "model",
+        "from",
+        "to",
+        "step",
+    ])?;
     let j = job(base, args)?;
     let from = number(args, "from", -1.0)?;
     let to = number(args, "to", -30.0)?;
@@ -262,11 +298,17 @@ fn freeze(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<(
         bail!("{n} points is too many; use a larger --step");
     }
     let dir = if to < from { -1.0 } else { 1.0 };
-    let temps: Vec<f64> = (0..n).map(|i| from + dir * step * i as f64 + T_ZERO_C).collect();
+    let temps: Vec<f64> = (0..n)
+        .map(|i| from + dir * step * i as f64 + T_ZERO_C)
+        .collect();
     let comp = j.formula.composition(&j.lib)?;
     let curve = properties::freezing_curve(&j.lib, &comp, j.model, &j.cond, &temps)?;
     if args.has("json") {
-        writeln!(out, "{}", serde_json::to_string_pretty(&report::freezing_json(&curve))?)?;
+        writeln!(
+            out,
+            "{}",
+            serde_json::to_string_pretty(&report::freezing_json(&curve))?
+        )?;
     } else {
         write!(out, "{}\n{}", j.title, report::freezing_table(&curve))?;
     }
@@ -287,13 +329,21 @@ fn sweep_cmd(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Resul
         "steps",
     ])?;
     let j = job(base, args)?;
-    let id = args.get("ingredient").ok_or_else(|| anyhow!("--ingredient ID is required"))?;
+    let id = args
+        .get("ingredient")
+        .ok_or_else(|| anyhow!("--ingredient ID is required"))?;
     j.lib.ingredient_or_suggest(id)?;
     let from = args.get("from").map(parse_amount).transpose()?;
-    let to = args.get("to").ok_or_else(|| anyhow!("--to AMOUNT is required"))?;
+    let to = args
+        .get("to")
+        .ok_or_else(|| anyhow!("--to AMOUNT is required"))?;
     let to = parse_amount(to)?;
-    let from_kg = from.map_or(Some(0.0), |a| a.kg()).ok_or_else(|| anyhow!("--from must be a mass (g, kg, …)"))?;
-    let to_kg = to.kg().ok_or_else(|| anyhow!("--to must be a mass (g, kg, …)"))?;
+    let from_kg = from
+        .map_or(Some(0.0), |a| a.kg())
+        .ok_or_else(|| anyhow!("--from must be a mass (g, kg, …)"))?;
+    let to_kg = to
+        .kg()
+        .ok_or_else(|| anyhow!("--to must be a mass (g, kg, …)"))?;
     let steps: usize = args
         .get("steps")
         .unwrap_or("50")
@@ -320,7 +370,8 @@ fn sweep_cmd(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Resul
                 Err(e) => serde_json::json!({"amount_g": kg * 1000.0, "error": e.to_string()}),
             })
             .collect();
-        let doc = serde_json::json!({"ingredient": id, "points": pts, "cautions": report::CAUTIONS});
+        let doc =
+            serde_json::json!({"ingredient": id, "points": pts, "cautions": report::CAUTIONS});
         writeln!(out, "{}", serde_json::to_string_pretty(&doc)?)?;
     } else {
         let csv = args.has("csv");
@@ -336,7 +387,11 @@ fn sweep_cmd(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Resul
             match r {
                 Ok(p) => {
                     for k in report::SCALAR_KEYS {
-                        let _ = write!(text, "{sep}{}", report::scalar(p, k).map_or(String::new(), fmt_num));
+                        let _ = write!(
+                            text,
+                            "{sep}{}",
+                            report::scalar(p, k).map_or(String::new(), fmt_num)
+                        );
                     }
                     let _ = writeln!(text, "{sep}{}{sep}", p.model);
                 }
@@ -361,7 +416,11 @@ pub fn fmt_num(v: f64) -> String {
     let s = format!("{v:.10e}");
     let parsed: f64 = s.parse().unwrap_or(v);
     let plain = format!("{parsed}");
-    if plain.len() <= 16 { plain } else { format!("{v:.8}") }
+    if plain.len() <= 16 {
+        plain
+    } else {
+        format!("{v:.8}")
+    }
 }
 
 /// Quotes a CSV field when needed.
@@ -396,7 +455,10 @@ pub fn split_csv(line: &str) -> Vec<String> {
 
 fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
     args.only(&["temperature", "pressure", "storage", "model", "properties"])?;
-    let path = args.positional.first().ok_or_else(|| anyhow!("give the CSV file of formulas"))?;
+    let path = args
+        .positional
+        .first()
+        .ok_or_else(|| anyhow!("give the CSV file of formulas"))?;
     let text = std::fs::read_to_string(path).with_context(|| format!("reading {path}"))?;
     let mut cond = Conditions::default();
     if let Some(t) = args.get("temperature") {
@@ -408,13 +470,24 @@ fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()
     if let Some(t) = args.get("storage") {
         cond.storage_temperature_k = parse_temperature(t)?;
     }
-    let model: ModelId = args.get("model").unwrap_or("auto").parse().map_err(|e: String| anyhow!(e))?;
+    let model: ModelId = args
+        .get("model")
+        .unwrap_or("auto")
+        .parse()
+        .map_err(|e: String| anyhow!(e))?;
     let keys: Vec<&str> = match args.get("properties") {
         Some(list) => {
-            let ks: Vec<&str> = list.split(',').map(str::trim).filter(|s| !s.is_empty()).collect();
+            let ks: Vec<&str> = list
+                .split(',')
+                .map(str::trim)
+                .filter(|s| !s.is_empty())
+                .collect();
             for k in &ks {
                 if !report::SCALAR_KEYS.contains(k) {
-                    bail!("unknown property `{k}` (choose from {})", report::SCALAR_KEYS.join(", "));
+                    bail!(
+                        "unknown property `{k}` (choose from {})",
+                        report::SCALAR_KEYS.join(", ")
+                    );
                 }
             }
             if ks.is_empty() {
@@ -424,7 +497,8 @@ fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()
         }
         None => report::SCALAR_KEYS.to_vec(),
     };
-    let rows = crate::batch::run_batch(base, &text, &keys, model, &cond).with_context(|| path.clone())?;
+    let rows =
+        crate::batch::run_batch(base, &text, &keys, model, &cond).with_context(|| path.clone())?;
     let mut w = std::io::BufWriter::with_capacity(1 << 16, out);
     w.write_all(rows.as_bytes())?;
     w.flush()?;

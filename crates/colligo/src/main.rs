@@ -14,7 +14,11 @@ fn main() -> ExitCode {
     if let Some(first) = args.first()
         && (cli::SUBCOMMANDS.contains(&first.as_str()) || first == "--help" || first == "-h")
     {
-        let sub = if first.starts_with('-') { "help" } else { first.as_str() };
+        let sub = if first.starts_with('-') {
+            "help"
+        } else {
+            first.as_str()
+        };
         let stdout = std::io::stdout();
         let mut lock = stdout.lock();
         return match cli::run(sub, &args[1..], &mut lock) {

@@ -60,9 +60,18 @@ pub fn properties_json(p: &Properties) -> Value {
     m.insert("model".into(), json!(p.model.as_str()));
     m.insert("model_reason".into(), json!(p.model_reason));
     m.insert("pressure_kpa".into(), json!(p.pressure_pa / 1000.0));
-    m.insert("pure_water_vapor_pressure_pa".into(), json!(p.pure_water_vapor_pressure_pa));
-    m.insert("freezing_point_depression_k".into(), opt(p.freezing_point_depression_k));
-    m.insert("cosolvent_vapor_pressure_pa".into(), opt(p.cosolvent_vapor_pressure_pa));
+    m.insert(
+        "pure_water_vapor_pressure_pa".into(),
+        json!(p.pure_water_vapor_pressure_pa),
+    );
+    m.insert(
+        "freezing_point_depression_k".into(),
+        opt(p.freezing_point_depression_k),
+    );
+    m.insert(
+        "cosolvent_vapor_pressure_pa".into(),
+        opt(p.cosolvent_vapor_pressure_pa),
+    );
     m.insert("total_g".into(), json!(p.total_g));
     m.insert("water_g".into(), json!(p.water_g));
     m.insert("insoluble_g".into(), json!(p.insoluble_g));
@@ -113,8 +122,17 @@ pub fn properties_table(p: &Properties, title: &str) -> String {
     let rows: Vec<(&str, String)> = vec![
         ("water activity a_w", format!("{:.4}", p.water_activity)),
         ("ERH", format!("{:.2} %", p.erh_percent)),
-        ("vapour pressure", format!("{:.1} Pa (pure water {:.1} Pa)", p.vapor_pressure_pa, p.pure_water_vapor_pressure_pa)),
-        ("relative lowering 1 − a_w", format!("{:.4}", p.relative_lowering)),
+        (
+            "vapour pressure",
+            format!(
+                "{:.1} Pa (pure water {:.1} Pa)",
+                p.vapor_pressure_pa, p.pure_water_vapor_pressure_pa
+            ),
+        ),
+        (
+            "relative lowering 1 − a_w",
+            format!("{:.4}", p.relative_lowering),
+        ),
         ("freezing point", fmt_opt(p.freezing_point_c, 2, "°C")),
         (
             "ice fraction of water",
@@ -124,16 +142,31 @@ pub fn properties_table(p: &Properties, title: &str) -> String {
             },
         ),
         ("boiling point", fmt_opt(p.boiling_point_c, 2, "°C")),
-        ("osmolality", format!("{:.0} mOsmol/kg", p.osmolality_mosmol_per_kg)),
-        ("osmotic pressure", format!("{:.3} MPa", p.osmotic_pressure_mpa)),
-        ("water", format!("{:.2} % of {:.2} g", p.water_percent, p.total_g)),
-        ("soluble solids", format!("{:.2} % of the solution", p.soluble_solids_percent)),
+        (
+            "osmolality",
+            format!("{:.0} mOsmol/kg", p.osmolality_mosmol_per_kg),
+        ),
+        (
+            "osmotic pressure",
+            format!("{:.3} MPa", p.osmotic_pressure_mpa),
+        ),
+        (
+            "water",
+            format!("{:.2} % of {:.2} g", p.water_percent, p.total_g),
+        ),
+        (
+            "soluble solids",
+            format!("{:.2} % of the solution", p.soluble_solids_percent),
+        ),
     ];
     for (k, v) in rows {
         out.push_str(&format!("  {k:<28}{v}\n"));
     }
     if let Some(pv) = p.cosolvent_vapor_pressure_pa {
-        out.push_str(&format!("  {:<28}{pv:.1} Pa\n", "co-solvent vapour pressure"));
+        out.push_str(&format!(
+            "  {:<28}{pv:.1} Pa\n",
+            "co-solvent vapour pressure"
+        ));
     }
     out.push_str("\n  solute                      dissolved g   undissolved g   molality mol/kg\n");
     for s in &p.solutes {
@@ -183,7 +216,11 @@ pub fn freezing_table(c: &FreezingCurve) -> String {
             p.ice_fraction_of_water,
             p.ice_fraction_of_total,
             p.water_activity,
-            if p.fully_frozen { "   (below eutectic)" } else { "" }
+            if p.fully_frozen {
+                "   (below eutectic)"
+            } else {
+                ""
+            }
         ));
     }
     for w in &c.warnings {

@@ -14,9 +14,20 @@ use crate::report;
 /// # Errors
 /// Bad arguments, or a target that cannot be reached (the error says why).
 pub fn solve(base: &Library, args: &Args, out: &mut dyn Write) -> Result<()> {
-    args.only(&["variant", "mix", "temperature", "pressure", "storage", "model", "ingredient", "target"])?;
+    args.only(&[
+        "variant",
+        "mix",
+        "temperature",
+        "pressure",
+        "storage",
+        "model",
+        "ingredient",
+        "target",
+    ])?;
     let j = job(base, args)?;
-    let id = args.get("ingredient").ok_or_else(|| anyhow!("--ingredient ID is required"))?;
+    let id = args
+        .get("ingredient")
+        .ok_or_else(|| anyhow!("--ingredient ID is required"))?;
     let target: Target = args
         .get("target")
         .ok_or_else(|| anyhow!("--target is required, e.g. --target water_activity=0.85"))?
@@ -32,7 +43,11 @@ pub fn solve(base: &Library, args: &Args, out: &mut dyn Write) -> Result<()> {
         });
         writeln!(out, "{}", serde_json::to_string_pretty(&doc)?)?;
     } else {
-        writeln!(out, "{id}: {:.3} g reaches {target}\n", r.amount_kg * 1000.0)?;
+        writeln!(
+            out,
+            "{id}: {:.3} g reaches {target}\n",
+            r.amount_kg * 1000.0
+        )?;
         write!(out, "{}", report::properties_table(&r.properties, &j.title))?;
     }
     Ok(())

@@ -234,7 +234,11 @@ impl Library {
         for (file, text) in texts.sources {
             let f: SourceFile = parse(file, text)?;
             for s in f.sources {
-                if lib.source_index.insert(s.key.clone(), lib.sources.len()).is_some() {
+                if lib
+                    .source_index
+                    .insert(s.key.clone(), lib.sources.len())
+                    .is_some()
+                {
                     return Err(LibraryError::Duplicate {
                         what: "source",
                         id: s.key,
@@ -298,7 +302,11 @@ impl Library {
 
     fn add_pitzer(&mut self, file: PitzerFile) -> Result<(), LibraryError> {
         for ion in file.ions {
-            if self.ion_index.insert(ion.id.clone(), self.ions.len()).is_some() {
+            if self
+                .ion_index
+                .insert(ion.id.clone(), self.ions.len())
+                .is_some()
+            {
                 return Err(LibraryError::Duplicate {
                     what: "ion",
                     id: ion.id,
@@ -465,7 +473,11 @@ impl Library {
     ///
     /// # Errors
     /// Duplicate id, unknown solute, composition not adding up to 100 g.
-    pub fn add_ingredient(&mut self, rec: IngredientRecord, user: bool) -> Result<usize, LibraryError> {
+    pub fn add_ingredient(
+        &mut self,
+        rec: IngredientRecord,
+        user: bool,
+    ) -> Result<usize, LibraryError> {
         check_id(&rec.id)?;
         if self.ingredient_index.contains_key(&rec.id) {
             return Err(LibraryError::Duplicate {
@@ -617,10 +629,11 @@ impl Library {
     /// # Errors
     /// [`LibraryError::UnknownIngredient`].
     pub fn ingredient_or_suggest(&self, id: &str) -> Result<usize, LibraryError> {
-        self.ingredient(id).ok_or_else(|| LibraryError::UnknownIngredient {
-            id: id.to_string(),
-            suggestions: self.suggest(id),
-        })
+        self.ingredient(id)
+            .ok_or_else(|| LibraryError::UnknownIngredient {
+                id: id.to_string(),
+                suggestions: self.suggest(id),
+            })
     }
 
     /// Ion by id.
@@ -657,7 +670,9 @@ impl Library {
                 if id.contains(&q) || (!id.is_empty() && q.contains(id)) {
                     d = d.min(2);
                 }
-                for name in std::iter::once(ing.name()).chain(ing.record.synonyms.iter().map(String::as_str)) {
+                for name in std::iter::once(ing.name())
+                    .chain(ing.record.synonyms.iter().map(String::as_str))
+                {
                     let n = name.to_lowercase();
                     if n.contains(&q) {
                         d = d.min(2);

@@ -164,6 +164,21 @@ pub struct NorrishRecord {
     pub source: Cite,
 }
 
+impl NorrishRecord {
+    /// K at `t_k`. A temperature-dependent K is held at the ends of its
+    /// data range instead of being extrapolated (fitted forms such as
+    /// a + b/T can run away outside their data).
+    pub fn k_at(&self, t_k: f64) -> f64 {
+        let (lo, hi) = self.t_range_c;
+        let t = if self.k.is_constant() || lo >= hi {
+            t_k
+        } else {
+            t_k.clamp(lo + crate::water::T_ZERO_C, hi + crate::water::T_ZERO_C)
+        };
+        self.k.eval(t, 0.1)
+    }
+}
+
 fn default_norrish_t_range() -> (f64, f64) {
     (20.0, 30.0)
 }

@@ -182,8 +182,18 @@ pub fn best_binary(lib: &Library, solute: usize, t_k: f64) -> Binary {
         return Binary::Wilson(WilsonBinary::new(v, t_k));
     }
     if let Some(pair) = s.pair {
-        let (c, nc) = s.ions.iter().copied().find(|(i, _)| lib.ions[*i].z > 0.0).unwrap_or((0, 1.0));
-        let (a, na) = s.ions.iter().copied().find(|(i, _)| lib.ions[*i].z < 0.0).unwrap_or((0, 1.0));
+        let (c, nc) = s
+            .ions
+            .iter()
+            .copied()
+            .find(|(i, _)| lib.ions[*i].z > 0.0)
+            .unwrap_or((0, 1.0));
+        let (a, na) = s
+            .ions
+            .iter()
+            .copied()
+            .find(|(i, _)| lib.ions[*i].z < 0.0)
+            .unwrap_or((0, 1.0));
         let mut b = PitzerBinary::new(lib, pair, c, a, nc, na);
         b.set_t(lib, t_k);
         return Binary::Pitzer(b);
@@ -191,7 +201,7 @@ pub fn best_binary(lib: &Library, solute: usize, t_k: f64) -> Binary {
     if !s.is_electrolyte()
         && let Some(n) = &s.record.norrish
     {
-        return Binary::Norrish { k: n.k.eval(t_k, 0.1) };
+        return Binary::Norrish { k: n.k_at(t_k) };
     }
     Binary::Ideal { nu: s.nu }
 }
@@ -202,7 +212,11 @@ mod tests {
 
     #[test]
     fn inverse_round_trips() {
-        for b in [Binary::Ideal { nu: 2.0 }, Binary::Norrish { k: 6.47 }, Binary::Norrish { k: -1.0 }] {
+        for b in [
+            Binary::Ideal { nu: 2.0 },
+            Binary::Norrish { k: 6.47 },
+            Binary::Norrish { k: -1.0 },
+        ] {
             for m in [0.01, 0.5, 2.0, 5.0] {
                 let y = b.ln_aw(m);
                 let (m2, _) = b.molality_at(y, 1.0, 100.0).unwrap_or((f64::NAN, 0.0));

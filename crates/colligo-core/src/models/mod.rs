@@ -102,7 +102,9 @@ impl FromStr for ModelId {
         ModelId::ALL
             .into_iter()
             .find(|m| m.as_str() == t)
-            .ok_or_else(|| format!("unknown model `{s}` (choose auto, ideal, norrish, ross, zsr or pitzer)"))
+            .ok_or_else(|| {
+                format!("unknown model `{s}` (choose auto, ideal, norrish, ross, zsr or pitzer)")
+            })
     }
 }
 
@@ -181,8 +183,14 @@ pub struct Evaluator<'l> {
 /// Picks the model `auto` uses for a composition, and says why.
 pub fn auto_choice(lib: &Library, comp: &Composition) -> (ModelId, String) {
     let present: Vec<_> = comp.solutes.iter().filter(|s| s.mol > 0.0).collect();
-    let n_el = present.iter().filter(|s| lib.solutes[s.solute].is_electrolyte()).count();
-    let n_vol = present.iter().filter(|s| lib.solutes[s.solute].volatile().is_some()).count();
+    let n_el = present
+        .iter()
+        .filter(|s| lib.solutes[s.solute].is_electrolyte())
+        .count();
+    let n_vol = present
+        .iter()
+        .filter(|s| lib.solutes[s.solute].volatile().is_some())
+        .count();
     let n = present.len();
     match (n, n_el, n_vol) {
         (0, _, _) => (ModelId::Ideal, "pure water".into()),
@@ -210,7 +218,12 @@ impl<'l> Evaluator<'l> {
     /// Prepares `comp` for repeated evaluation under `model` (`auto`
     /// resolved by [`auto_choice`]). Only solutes present (mol > 0) take part.
     pub fn new(lib: &'l Library, comp: &Composition, model: ModelId) -> Self {
-        let solutes: Vec<SoluteIdx> = comp.solutes.iter().filter(|s| s.mol > 0.0).map(|s| s.solute).collect();
+        let solutes: Vec<SoluteIdx> = comp
+            .solutes
+            .iter()
+            .filter(|s| s.mol > 0.0)
+            .map(|s| s.solute)
+            .collect();
         let model = if model == ModelId::Auto {
             auto_choice(lib, comp).0
         } else {
@@ -304,10 +317,11 @@ impl<'l> Evaluator<'l> {
 
     /// True when every solute present in `comp` is in this evaluator.
     pub fn covers(&self, comp: &Composition) -> bool {
-        comp.solutes
-            .iter()
-            .filter(|s| s.mol > 0.0)
-            .all(|s| self.comps.binary_search_by_key(&s.solute, |c| c.solute).is_ok())
+        comp.solutes.iter().filter(|s| s.mol > 0.0).all(|s| {
+            self.comps
+                .binary_search_by_key(&s.solute, |c| c.solute)
+                .is_ok()
+        })
     }
 
     /// The concrete model in use.
@@ -330,7 +344,7 @@ impl<'l> Evaluator<'l> {
             let s = &lib.solutes[c.solute];
             self.signed_sqrt_k[i] = match (&s.record.norrish, c.role) {
                 (Some(n), Role::NonElectrolyte) => {
-                    let k = n.k.eval(t_k, 0.1);
+                    let k = n.k_at(t_k);
                     k.signum() * k.abs().sqrt()
                 }
                 _ => 0.0,
@@ -421,21 +435,27 @@ impl<'l> Evaluator<'l> {
 
     fn norrish(&self, w: f64, d: &[f64]) -> f64 {
         let nw = w / M_W;
-        let mut ntot = nw;
+        let mut particles = 0.0;
         let mut sk = 0.0;
         for (i, c) in self.comps.iter().enumerate() {
             if c.role == Role::Volatile {
                 continue;
             }
-            ntot += c.nu * d[i];
+            particles += c.nu * d[i];
             sk += self.signed_sqrt_k[i] * d[i];
         }
-        let sx = sk / ntot;
-        -(ntot / nw).ln() - sx.signum() * sx * sx + self.volatile_ln_aw(w, d)
+        let sx = sk / (nw + particles);
+        // ln x_w = −ln(1 + n/n_w), written with ln_1p to keep precision at
+        // infinite dilution.
+        -(particles / nw).ln_1p() - sx.signum() * sx * sx + self.volatile_ln_aw(w, d)
     }
 
     fn ross(&self, w: f64, d: &[f64]) -> f64 {
-        self.binaries.iter().zip(d).map(|(b, n)| b.ln_aw(n / w)).sum()
+        self.binaries
+            .iter()
+            .zip(d)
+            .map(|(b, n)| b.ln_aw(n / w))
+            .sum()
     }
 
     fn pitzer(&mut self, w: f64, d: &[f64]) -> f64 {
@@ -444,13 +464,15 @@ impl<'l> Evaluator<'l> {
             self.ion_m[local] += count * d[ci] / w;
         }
         let (phi, sum) = self.pitzer.phi(&self.ion_m);
+        // Solutes without Pitzer parameters count ideally (Raoult, in the
+        // mole-fraction form their own binary uses).
         let mut ideal = 0.0;
         for (i, c) in self.comps.iter().enumerate() {
             if matches!(c.role, Role::NonElectrolyte | Role::IdealSalt) {
                 ideal += c.nu * d[i] / w;
             }
         }
-        -M_W * (phi * sum + ideal) + self.volatile_ln_aw(w, d)
+        -M_W * phi * sum - (M_W * ideal).ln_1p() + self.volatile_ln_aw(w, d)
     }
 
     /// ZSR: solve Σ m_i / m_i°(y) = 1 for y = ln a_w by Newton, warm-started
@@ -479,7 +501,11 @@ impl<'l> Evaluator<'l> {
             let m = d[i] / w;
             if m > 0.0 {
                 let yi = self.binaries[i].ln_aw(m);
-                self.zsr_m[i] = if yi < 0.0 { m * y / yi } else { m * active as f64 };
+                self.zsr_m[i] = if yi < 0.0 {
+                    m * y / yi
+                } else {
+                    m * active as f64
+                };
             }
         }
         let (mut lo, mut hi) = (f64::NEG_INFINITY, 0.0_f64);
@@ -508,7 +534,11 @@ impl<'l> Evaluator<'l> {
             if !ok {
                 // Some binary cannot reach y: y is too low.
                 lo = y;
-                y = if hi.is_finite() { 0.5 * (lo + hi) } else { 0.5 * y };
+                y = if hi.is_finite() {
+                    0.5 * (lo + hi)
+                } else {
+                    0.5 * y
+                };
                 continue;
             }
             // g increases with y.
@@ -522,7 +552,11 @@ impl<'l> Evaluator<'l> {
             }
             let mut next = y - g / dg;
             if !(next > lo && next < hi) || !next.is_finite() {
-                next = if lo.is_finite() { 0.5 * (lo + hi) } else { 2.0 * y - 1e-12 };
+                next = if lo.is_finite() {
+                    0.5 * (lo + hi)
+                } else {
+                    2.0 * y - 1e-12
+                };
             }
             if (next - y).abs() < 1e-15 * y.abs().max(1e-12) {
                 return next;
@@ -541,7 +575,13 @@ impl<'l> Evaluator<'l> {
             .binaries
             .iter()
             .zip(dissolved)
-            .map(|(b, n)| if water_kg > 0.0 { b.ln_aw(n / water_kg) } else { 0.0 })
+            .map(|(b, n)| {
+                if water_kg > 0.0 {
+                    b.ln_aw(n / water_kg)
+                } else {
+                    0.0
+                }
+            })
             .collect();
         let sum: f64 = parts.iter().sum();
         if sum == 0.0 {
@@ -556,7 +596,12 @@ impl<'l> Evaluator<'l> {
             .iter()
             .zip(undissolved)
             .map(|(c, u)| {
-                let h = match self.lib.solutes[c.solute].record.solubility.as_ref().map(|s| &s.on_freezing) {
+                let h = match self.lib.solutes[c.solute]
+                    .record
+                    .solubility
+                    .as_ref()
+                    .map(|s| &s.on_freezing)
+                {
                     Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
                     _ => 0.0,
                 };

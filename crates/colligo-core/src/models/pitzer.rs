@@ -82,14 +82,14 @@ pub fn aphi_m88(t_k: f64) -> f64 {
     crate::tfun::moller1988_eq13(
         t_k,
         &[
-        3.369_015_32e-1,
-        -6.321_004_30e-4,
-        9.142_523_59,
-        -1.351_439_86e-2,
-        2.260_894_88e-3,
-        1.921_185_97e-6,
-        4.525_864_64e1,
-        0.0,
+            3.369_015_32e-1,
+            -6.321_004_30e-4,
+            9.142_523_59,
+            -1.351_439_86e-2,
+            2.260_894_88e-3,
+            1.921_185_97e-6,
+            4.525_864_64e1,
+            0.0,
         ],
     )
 }
@@ -166,7 +166,10 @@ pub fn harvie_j(x: f64) -> (f64, f64) {
         b0 = z * b1 - b2 + a;
         d0 = b1 + z * d1 - d2;
     }
-    (0.25 * x - 1.0 + 0.5 * (b0 - b2), 0.25 + 0.5 * dz * (d0 - d2))
+    (
+        0.25 * x - 1.0 + 0.5 * (b0 - b2),
+        0.25 + 0.5 * dz * (d0 - d2),
+    )
 }
 
 /// Parameters of one cation–anion pair at a temperature.
@@ -253,7 +256,14 @@ pub struct PitzerBinary {
 
 impl PitzerBinary {
     /// A binary for the library pair `pair` with ion counts.
-    pub fn new(lib: &Library, pair: usize, cation: IonIdx, anion: IonIdx, nc: f64, na: f64) -> Self {
+    pub fn new(
+        lib: &Library,
+        pair: usize,
+        cation: IonIdx,
+        anion: IonIdx,
+        nc: f64,
+        na: f64,
+    ) -> Self {
         PitzerBinary {
             pair,
             zc: lib.ions[cation].z,
@@ -469,7 +479,11 @@ mod tests {
         for x in [0.05, 0.5, 0.99, 1.01, 3.0, 20.0] {
             let h = 1e-6 * x;
             let fd = (harvie_j(x + h).0 - harvie_j(x - h).0) / (2.0 * h);
-            assert!((fd - harvie_j(x).1).abs() < 1e-6, "{x}: {fd} vs {}", harvie_j(x).1);
+            assert!(
+                (fd - harvie_j(x).1).abs() < 1e-6,
+                "{x}: {fd} vs {}",
+                harvie_j(x).1
+            );
         }
         // Continuity at the switch between the two Chebyshev series.
         assert!((harvie_j(1.0 - 1e-12).0 - harvie_j(1.0).0).abs() < 1e-9);
