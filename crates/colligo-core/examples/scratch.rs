@@ -1,37 +1,47 @@
-//! scratch
-use colligo_core::models::*;
+//! scratch: sweep timing per ingredient
 use colligo_core::*;
 fn main() {
     let lib = Library::builtin().unwrap();
-    let p =
-        project::Project::load(std::path::Path::new("samples/ice_cream_mix.ron"), &lib).unwrap();
-    let comp = p.active().composition(&lib).unwrap();
-    for model in [
-        ModelId::Zsr,
-        ModelId::Ideal,
-        ModelId::Norrish,
-        ModelId::Ross,
-    ] {
-        let mut ev = Evaluator::new(&lib, &comp, model);
-        ev.ln_aw(277.15, comp.water_kg, &CapMode::Equilibrium);
-        let before = ev.last_dissolved().to_vec();
-        let mode = CapMode::Freezing {
-            before: before.clone(),
-        };
-        let t = 255.15;
-        let li = water::ice_equilibrium_ln_aw(t);
-        print!("{model}: ln_ice {li:.4} | ");
-        for u in [0.0f64, -0.5, -1.0, -2.0, -4.0, -8.0, -20.7] {
-            let w = comp.water_kg * u.exp();
-            let y = ev.ln_aw(t, w, &mode);
-            print!("u={u}: {y:.4} ");
-        }
-        println!();
-        for (c, d) in ev.comps.iter().zip(&before) {
-            if lib.solutes[c.solute].record.solubility.is_some() && !c.stays_dissolved_on_freezing {
-                print!("{} {:.4} ", lib.solutes[c.solute].id(), d);
-            }
-        }
-        println!();
+    let f = Formula::new(
+        "x",
+        vec![
+            Line::grams("water", 500.0),
+            Line::grams("sucrose", 120.0),
+            Line::grams("glucose", 40.0),
+            Line::grams("fructose", 40.0),
+            Line::grams("maltose", 20.0),
+            Line::grams("glycerol", 30.0),
+            Line::grams("sorbitol", 25.0),
+            Line::grams("propylene_glycol", 10.0),
+            Line::grams("citric_acid", 8.0),
+            Line::grams("lactic_acid", 6.0),
+            Line::grams("sodium_chloride", 30.0),
+            Line::grams("potassium_chloride", 8.0),
+            Line::grams("sodium_lactate", 12.0),
+        ],
+    );
+    let amounts = sweep::linspace(0.0, 0.2, 200);
+    for l in f.lines.iter().take(8) {
+        let t0 = std::time::Instant::now();
+        let q = sweep::quick_sweep(
+            &lib,
+            &f,
+            &l.ingredient,
+            &amounts,
+            ModelId::Auto,
+            298.15,
+            true,
+        )
+        .unwrap();
+        let nan = q.freezing_point_c.iter().filter(|x| x.is_nan()).count();
+        println!(
+            "{:20} {:?} nan fp {nan}  aw[0]={:.3} aw[end]={:.3} fp {:.2} {:.2}",
+            l.ingredient,
+            t0.elapsed(),
+            q.water_activity[0],
+            q.water_activity[199],
+            q.freezing_point_c[1],
+            q.freezing_point_c[199]
+        );
     }
 }

@@ -184,10 +184,17 @@ pub struct WarmStart {
     pub freezing_k: Option<f64>,
     /// Last boiling point, K.
     pub boiling_k: Option<f64>,
+    /// Freezing point of the composition, K, when known: colder points
+    /// then skip the all-liquid check.
+    pub known_freezing_k: Option<f64>,
     /// Last liquid-water fraction during freezing, ln(w/W).
     pub ln_liquid: Option<f64>,
     /// Last slope of the ice-fraction equation.
     pub slope: f64,
+    /// Temperature of the last ice-fraction answer, K.
+    pub t_last: f64,
+    /// The answer before it, `(T, ln(w/W))`, for extrapolation.
+    pub prev: Option<(f64, f64)>,
 }
 
 /// Freezing point, K, of the composition prepared in `ev`, with `before`
@@ -216,19 +223,25 @@ pub fn freezing_point_with(
     warm: Option<f64>,
 ) -> Result<f64, ModelError> {
     let w = ev.water_kg;
-    let mut g = |t: f64| ev.ln_aw(t, w, mode) - water::ice_equilibrium_ln_aw(t);
+    // First guess: the temperature where ice is in equilibrium with the
+    // last computed a_w (exact for temperature-independent models), found
+    // on the ice curve alone without model evaluations.
     let x0 = match warm {
         Some(t) => t,
         None => {
-            // First guess from the product-temperature a_w and the ice curve's slope.
-            let y = g(T_ZERO_C - 1e-9);
-            T_ZERO_C + y / 0.009_69
+            let y = ev.last_ln_aw();
+            if y.is_finite() && y < 0.0 {
+                ice_temperature_for(y)
+            } else {
+                T_ZERO_C - 1.0
+            }
         }
     };
-    let x0 = x0.clamp(T_FREEZE_MIN, T_ZERO_C);
+    let mut g = |t: f64| ev.ln_aw(t, w, mode) - water::ice_equilibrium_ln_aw(t);
+    let x0 = x0.clamp(T_FREEZE_MIN, T_ZERO_C - 1e-9);
     let slope = -water::ice_equilibrium_dln_aw_dt(x0.min(T_ZERO_C - 0.01));
     let opts = SolveOptions {
-        x_tol: 1e-7,
+        x_tol: 1e-6,
         f_tol: 1e-12,
         max_iter: 100,
     };
@@ -245,6 +258,22 @@ pub fn freezing_point_with(
     }
 }
 
+/// The temperature at which ice is in equilibrium with a solution of
+/// ln a_w = `y` (< 0): Newton on the ice curve alone.
+pub fn ice_temperature_for(y: f64) -> f64 {
+    let mut t = (T_ZERO_C + y / 0.009_69).max(T_FREEZE_MIN);
+    for _ in 0..30 {
+        let f = water::ice_equilibrium_ln_aw(t) - y;
+        let d = water::ice_equilibrium_dln_aw_dt(t);
+        let step = f / d;
+        t = (t - step).clamp(T_FREEZE_MIN, T_ZERO_C - 1e-9);
+        if step.abs() < 1e-10 {
+            break;
+        }
+    }
+    t
+}
+
 /// The ice fraction at one temperature.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize)]
 pub struct IcePoint {
@@ -254,6 +283,10 @@ pub struct IcePoint {
     pub ice_fraction_of_water: f64,
     /// Ice / batch mass.
     pub ice_fraction_of_total: f64,
+    /// Unfrozen (liquid) water / all water.
+    pub liquid_fraction_of_water: f64,
+    /// Water bound in crystal hydrates of solutes that crystallised / all water.
+    pub hydrate_fraction_of_water: f64,
     /// a_w of the unfrozen solution (= ice equilibrium when ice is present).
     pub water_activity: f64,
     /// True below the eutectic (no liquid left).
@@ -278,12 +311,19 @@ pub fn ice_fraction(
     };
     let ln_ice = water::ice_equilibrium_ln_aw(t_k);
     let t_c = t_k - T_ZERO_C;
-    let f_all_liquid = ev.ln_aw(t_k, w_total, &mode) - ln_ice;
+    let below_known = warm.known_freezing_k.is_some_and(|tf| t_k < tf - 1e-6);
+    let f_all_liquid = if below_known {
+        1.0
+    } else {
+        ev.ln_aw(t_k, w_total, &mode) - ln_ice
+    };
     if f_all_liquid <= 0.0 {
         return Ok(IcePoint {
             temperature_c: t_c,
             ice_fraction_of_water: 0.0,
             ice_fraction_of_total: 0.0,
+            liquid_fraction_of_water: 1.0,
+            hydrate_fraction_of_water: 0.0,
             water_activity: (f_all_liquid + ln_ice).exp(),
             fully_frozen: false,
         });
@@ -291,8 +331,10 @@ pub fn ice_fraction(
     // When every dissolved solute can crystallise, the freeze-concentrate
     // ends at saturation in all of them; if even that liquid is above ice
     // equilibrium the eutectic has been passed and no liquid remains.
-    if let Some(u_sat) = all_saturated_u(ev, before, t_k)
-        && ev.ln_aw(t_k, w_total * u_sat.exp(), &mode) - ln_ice > 0.0
+    let pure_water = before.iter().all(|&b| b <= 0.0);
+    if pure_water
+        || all_saturated_u(ev, before, t_k)
+            .is_some_and(|u_sat| ev.ln_aw(t_k, w_total * u_sat.exp(), &mode) - ln_ice > 0.0)
     {
         let bound = ev.hydrate_water_kg(before).min(w_total);
         let ice = w_total - bound;
@@ -301,51 +343,45 @@ pub fn ice_fraction(
             temperature_c: t_c,
             ice_fraction_of_water: ice / w_total,
             ice_fraction_of_total: ice / total_kg,
+            liquid_fraction_of_water: 0.0,
+            hydrate_fraction_of_water: bound / w_total,
             water_activity: ln_ice.exp(),
             fully_frozen: true,
         });
     }
     // Unknown u = ln(w / W), the liquid share of the water. f rises with u.
     let mut f = |u: f64| ev.ln_aw(t_k, w_total * u.exp(), &mode) - ln_ice;
-    // Bracket from above: step the liquid share down from the last answer
-    // (or from half the water) until the liquid is below ice equilibrium.
+    // Start from the neighbouring temperature's answer, extrapolated
+    // linearly when two are known; secant steps from there, with Brent on
+    // [1e-6 of the water, all of it] as the fallback.
     let u_floor = (1e-6f64).ln();
-    let start = warm.ln_liquid.unwrap_or(-0.7).min(-1e-6);
-    let mut hi = 0.0;
-    let mut lo = start;
-    let mut f_lo = f(lo);
-    let mut step = 0.35;
-    while f_lo > 0.0 {
-        hi = lo;
-        if lo <= u_floor {
-            return Err(ModelError::Undefined {
-                property: "ice fraction",
-                reason: format!(
-                    "no ice equilibrium found above a liquid share of 1e-6 at {t_c:.1} °C"
-                ),
-            });
-        }
-        lo = (lo - step).max(u_floor);
-        step *= 2.0;
-        f_lo = f(lo);
-    }
-    let x0 = if warm.ln_liquid.is_some() {
-        start
+    let slope0 = if warm.slope > 0.0 {
+        warm.slope
     } else {
-        0.5 * (lo + hi)
+        -ln_ice
     };
+    let x0 = match (warm.ln_liquid, warm.prev) {
+        (Some(u1), Some((t0, u0))) if warm.t_last != t0 => {
+            u1 + (u1 - u0) * (t_k - warm.t_last) / (warm.t_last - t0)
+        }
+        (Some(u1), _) => u1,
+        _ => -0.7,
+    }
+    .clamp(u_floor, -1e-9);
     let opts = SolveOptions {
-        x_tol: 1e-10,
-        f_tol: 1e-12,
+        x_tol: 1e-8,
+        f_tol: 1e-11,
         max_iter: 100,
     };
     let (root, slope) =
-        solve_warm(&mut f, lo, hi, x0.clamp(lo, hi), warm.slope, opts).map_err(|e| {
-            ModelError::Solver {
-                property: "ice fraction",
-                source: e,
-            }
+        solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| ModelError::Solver {
+            property: "ice fraction",
+            source: e,
         })?;
+    if let Some(u1) = warm.ln_liquid {
+        warm.prev = Some((warm.t_last, u1));
+    }
+    warm.t_last = t_k;
     warm.ln_liquid = Some(root.x);
     warm.slope = slope;
     let liquid = w_total * root.x.exp();
@@ -362,6 +398,8 @@ pub fn ice_fraction(
         temperature_c: t_c,
         ice_fraction_of_water: ice / w_total,
         ice_fraction_of_total: ice / total_kg,
+        liquid_fraction_of_water: liquid / w_total,
+        hydrate_fraction_of_water: bound / w_total,
         water_activity: ln_ice.exp(),
         fully_frozen: false,
     })
@@ -373,17 +411,29 @@ pub fn ice_fraction(
 fn all_saturated_u(ev: &mut Evaluator<'_>, before: &[f64], t_k: f64) -> Option<f64> {
     ev.set_t(t_k);
     let mut w_sat = f64::INFINITY;
+    let mut any = false;
     for (i, c) in ev.comps.iter().enumerate() {
         if before[i] <= 0.0 {
             continue;
         }
         let s = ev.solubility(i);
-        if c.stays_dissolved_on_freezing || !s.is_finite() || s <= 0.0 {
+        if c.stays_dissolved_on_freezing || !s.is_finite() {
             return None;
         }
-        w_sat = w_sat.min(before[i] / s);
+        any = true;
+        // A solubility of zero (below the data, past the eutectic)
+        // saturates at any amount of liquid.
+        if s > 0.0 {
+            w_sat = w_sat.min(before[i] / s);
+        }
     }
-    (w_sat.is_finite() && w_sat > 0.0).then(|| (0.5 * w_sat / ev.water_kg).ln().min(0.0))
+    if !any {
+        return None;
+    }
+    if !w_sat.is_finite() {
+        return Some(0.0);
+    }
+    Some((0.5 * w_sat / ev.water_kg).ln().min(0.0))
 }
 
 fn ev_dissolved(ev: &Evaluator<'_>) -> Vec<f64> {
@@ -410,6 +460,22 @@ pub fn boiling_point(
         .filter(|(_, c)| c.role == Role::Volatile)
         .map(|(i, c)| (i, c.solute))
         .collect();
+    // First guess from the last computed a_w: a_w p_sat(T) = P on the
+    // pure-water curve (Newton, no model evaluations).
+    let x0 = warm.unwrap_or_else(|| {
+        let y = ev.last_ln_aw();
+        let y = if y.is_finite() { y } else { 0.0 };
+        let mut t = t_pure;
+        for _ in 0..20 {
+            let f = y + water::p_sat_liquid(t).ln() - ln_p;
+            let step = f / water::dln_p_sat_liquid_dt(t);
+            t = (t - step).clamp(T_FREEZE_MIN, T_BOIL_MAX);
+            if step.abs() < 1e-9 {
+                break;
+            }
+        }
+        t
+    });
     let mut h = |t: f64| {
         let ln_aw = ev.ln_aw(t, w, &CapMode::Equilibrium);
         let pw = ln_aw.exp() * water::p_sat_liquid(t);
@@ -419,7 +485,6 @@ pub fn boiling_point(
             .sum();
         (pw + pv).ln() - ln_p
     };
-    let x0 = warm.unwrap_or(t_pure + 0.5);
     let slope = water::dln_p_sat_liquid_dt(x0);
     let lo = (t_pure - 80.0).max(T_FREEZE_MIN);
     match solve_warm(
@@ -861,7 +926,10 @@ pub fn freezing_curve(
         }
     };
     let total = comp.total_kg();
-    let mut warm = WarmStart::default();
+    let mut warm = WarmStart {
+        known_freezing_k: fp.map(|c| c + T_ZERO_C),
+        ..WarmStart::default()
+    };
     let mut points = Vec::with_capacity(temps_k.len());
     let mut eutectic_noted = false;
     for &t in temps_k {

@@ -205,7 +205,21 @@ pub fn solve_warm(
             }
         }
         if slope == 0.0 || !slope.is_finite() {
-            break;
+            // No slope yet: probe a small step towards the wider side.
+            let h = 1e-4 * (hi - lo) * if hi - x > x - lo { 1.0 } else { -1.0 };
+            let fp = eval(x + h, &mut evals);
+            if !fp.is_finite() {
+                break;
+            }
+            slope = (fp - fx) / h;
+            if slope == 0.0 || !slope.is_finite() {
+                break;
+            }
+            if fp < 0.0 {
+                neg = Some((x + h, fp));
+            } else {
+                pos = Some((x + h, fp));
+            }
         }
         let next = x - fx / slope;
         let (blo, bhi) = match (neg, pos) {

@@ -75,24 +75,22 @@ fn prepare<'l>(
         .iter()
         .map(|&kg| with_amount(formula, id, kg).composition(lib))
         .collect::<Result<Vec<_>, _>>()?;
+    // The richest composition: every solute at its largest amount.
     let mut union = Composition::new();
     for c in &comps {
-        for s in &c.solutes {
-            union.add_solute(s.solute, s.kg, s.kg / s.mol.max(f64::MIN_POSITIVE));
+        union.water_kg = union.water_kg.max(c.water_kg);
+        for s in c.solutes.iter().filter(|s| s.mol > 0.0) {
+            if union.mol_of(s.solute) < s.mol {
+                union = union.with_solute_mol(lib, s.solute, s.mol);
+            }
         }
-        union.water_kg += c.water_kg;
     }
     let resolved = if model == ModelId::Auto {
         auto_choice(lib, &union).0
     } else {
         model
     };
-    let solutes: Vec<usize> = union
-        .solutes
-        .iter()
-        .filter(|s| s.mol > 0.0)
-        .map(|s| s.solute)
-        .collect();
+    let solutes: Vec<usize> = union.solutes.iter().map(|s| s.solute).collect();
     Ok((comps, Evaluator::with_solutes(lib, &solutes, resolved)))
 }
 

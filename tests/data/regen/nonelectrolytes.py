@@ -20,6 +20,11 @@ Sources of the data (keys of assets/sources/*.ron):
   lange_table_5_13   Lange's Handbook of Chemistry, 15th ed., Table 5.13 (ethanol-water freezing points).
   makinen2010        K(25 C) of glycerol (1.16) used as the pin of the glycerol fit.
   poling2001_chemicals  Antoine constants of ethanol (chemicals 1.5.2, "Antoine Collection Poling").
+  pemberton_mash1978 ethanol-water P-x-y at 303.15 K (transcribed in the thermopack repository).
+  vlenotes_ethanol_water  ethanol-water isothermal P-x sets at 323.15 and 363.15 K (bldamalla/vle-notes).
+  beebe1942_vlenotes, kirschbaum1939_vlizard  isobaric T-x-y checks near 101 kPa.
+  badajoz2021        ethanol-water azeotrope at 100 kPa (x1 = 0.899, 351.39 K).
+  coolprop800_heos, thermo061_dortmund_unifac  25 and 50 C checks of the ethanol fit (not fitted).
 """
 import math
 import numpy as np
@@ -177,10 +182,64 @@ def main():
     ethanol()
 
 
+# Ethanol-water vapour-liquid equilibrium data (ethanol = 1).
+# Pemberton & Mash (1978), static method, 303.15 K: (x1, y1, P/kPa), transcribed in the thermopack
+# repository (thermotools/thermopack, addon/pyExamples/cpa_water_ethanol.py); pure-component
+# pressures 10.472 and 4.247 kPa from the x1 = 1 and x1 = 0 rows of the same isotherm as
+# transcribed in bldamalla/vle-notes (data/ethanol-water/T30.csv).
+PM1978_303 = dict(T=303.15, p1=10.472, p2=4.247, rows=[
+    (0.00435, 0.0412, 4.413), (0.01524, 0.1280, 4.803), (0.02727, 0.2043, 5.203), (0.04633, 0.2975, 5.781),
+    (0.06783, 0.3753, 6.386), (0.10991, 0.4743, 7.329), (0.17111, 0.5479, 8.189), (0.24688, 0.5907, 8.723),
+    (0.32385, 0.6194, 9.085), (0.38655, 0.6406, 9.303), (0.41758, 0.6508, 9.403), (0.50492, 0.6797, 9.663),
+    (0.58087, 0.7087, 9.869), (0.63434, 0.7329, 9.999), (0.72455, 0.7810, 10.199), (0.80840, 0.8337, 10.341),
+    (0.85785, 0.8705, 10.394), (0.89064, 0.8979, 10.427), (0.89934, 0.9056, 10.435), (0.92444, 0.9284, 10.445),
+    (0.95370, 0.9556, 10.457), (0.97315, 0.9739, 10.467), (0.98153, 0.9819, 10.473)])
+# Isothermal P-x sets transcribed in bldamalla/vle-notes, data/ethanol-water/ (x1, P/kPa); first
+# and last rows are the pure liquids. T50 and T90 are fitted, T50_2 and T90_2 are checks only.
+VLENOTES = {
+    "T50": (323.15, [(1.0, 29.467), (0.9469, 29.515), (0.895, 29.483), (0.8412, 29.402), (0.7297, 29.002), (0.6528, 28.6), (0.5917, 28.187), (0.568, 27.979), (0.561, 28.018), (0.4609, 27.144), (0.4526, 27.172), (0.396, 26.604), (0.357, 26.263), (0.3482, 26.169), (0.3442, 26.19), (0.243, 24.93), (0.2297, 24.779), (0.1518, 23.171), (0.1398, 22.822), (0.0878, 20.594), (0.082, 20.276), (0.0536, 18.228), (0.028, 15.899), (0.0253, 15.633), (0.0, 12.347)]),
+    "T90": (363.15, [(1.0, 157.892), (0.98153, 158.227), (0.97315, 158.354), (0.9537, 158.6), (0.92445, 158.868), (0.89935, 158.963), (0.85783, 158.914), (0.80833, 158.489), (0.76364, 157.811), (0.72433, 157.003), (0.63399, 154.47), (0.58044, 152.616), (0.50445, 149.595), (0.41705, 145.622), (0.388, 144.188), (0.32356, 140.677), (0.24642, 135.64), (0.17057, 128.811), (0.10939, 119.548), (0.06731, 108.298), (0.04594, 99.667), (0.02693, 89.62), (0.01507, 81.909), (0.00429, 73.726), (0.0, 70.124)]),
+    "T50_2": (323.15, [(1.0, 29.515), (0.9434, 29.576), (0.8862, 29.567), (0.8837, 29.474), (0.7753, 29.299), (0.7253, 29.072), (0.6756, 28.824), (0.6269, 28.541), (0.5769, 28.213), (0.5236, 27.828), (0.4987, 27.646), (0.4765, 27.458), (0.4487, 27.216), (0.3991, 26.759), (0.348, 26.257), (0.2999, 25.728), (0.2491, 25.073), (0.1995, 24.242), (0.1505, 23.081), (0.1008, 21.142), (0.0743, 19.614), (0.049, 17.64), (0.022, 15.087), (0.0, 12.375)]),
+    "T90_2": (363.15, [(1.0, 158.49), (0.99755, 158.54), (0.95921, 159.16), (0.91231, 159.48), (0.86455, 159.56), (0.81658, 159.16), (0.76903, 158.49), (0.72155, 157.52), (0.67564, 156.31), (0.62981, 154.89), (0.58487, 153.33), (0.53597, 151.47), (0.48771, 149.44), (0.43922, 147.21), (0.3917, 144.9), (0.34348, 142.32), (0.32859, 141.53), (0.29404, 139.51), (0.27556, 138.14), (0.24604, 136.2), (0.22053, 134.07), (0.17001, 129.3), (0.11396, 121.21), (0.05444, 104.13), (0.0, 70.34)]),
+}
+# Isobaric checks (x1, y1, T/K): Beebe et al. (1942) at 760 torr as transcribed in bldamalla/vle-notes
+# (data/ethanol-water/P760.csv, T in deg C there), and Kirschbaum & Gerstner (1939) at 98.6586 kPa as
+# transcribed in Lemonexe/VLizard (appPy/data/VLE/EtOH-H2O/1939atm.tsv).
+BEEBE_760 = (101325.0, [(x, y, t + 273.15) for x, y, t in [
+    (0.0028, 0.0320, 99.30), (0.0118, 0.1130, 96.90), (0.0137, 0.1570, 96.00), (0.0144, 0.1350, 96.00), (0.0176, 0.1560, 95.60),
+    (0.0222, 0.1860, 94.80), (0.0246, 0.2120, 93.80), (0.0302, 0.2310, 93.50), (0.0331, 0.2480, 92.90), (0.0519, 0.3180, 90.50),
+    (0.0530, 0.3140, 90.50), (0.0625, 0.3390, 89.40), (0.0673, 0.3700, 88.40), (0.0715, 0.3620, 88.60), (0.0871, 0.4060, 87.20),
+    (0.1260, 0.4680, 85.40), (0.1430, 0.4780, 84.50), (0.1720, 0.5050, 84.00), (0.2060, 0.5300, 83.40), (0.2100, 0.5270, 83.00),
+    (0.2500, 0.5520, 82.30), (0.2840, 0.5670, 82.00), (0.3210, 0.5860, 81.40), (0.3240, 0.5860, 81.50), (0.3450, 0.5910, 81.20),
+    (0.4050, 0.6140, 80.90), (0.4300, 0.6260, 80.50), (0.4490, 0.6330, 80.20), (0.5060, 0.6610, 80.00), (0.5450, 0.6730, 79.50),
+    (0.6630, 0.7330, 78.80), (0.7350, 0.7760, 78.50), (0.8040, 0.8150, 78.40), (0.9170, 0.9060, 78.30)]])
+KIRSCHBAUM_1939 = (98658.6, [
+    (0.005521689, 0.059848453, 370.82377), (0.013576588, 0.138879737, 368.873575), (0.023091001, 0.209186116, 366.873375),
+    (0.034618501, 0.269147218, 364.92318), (0.051992735, 0.330508421, 362.523), (0.07905307, 0.401761933, 359.823),
+    (0.107775107, 0.452702953, 358.073), (0.1291679, 0.479487617, 357.153), (0.157233963, 0.503867047, 356.223),
+    (0.166428293, 0.515186965, 355.943), (0.198329383, 0.529329822, 355.273), (0.20849936, 0.530632695, 355.123),
+    (0.317234633, 0.578132943, 353.653), (0.414312092, 0.617489791, 352.72304), (0.49032876, 0.646742508, 352.1231),
+    (0.498906744, 0.654667798, 352.02311), (0.625820226, 0.712996552, 351.1232), (0.755196063, 0.786431104, 350.42327)])
+# Wilson a12(T), a21(T) (J/mol) as fitted: Taylor forms about 298.15 K (tfun.rs TempFn::Taylor).
+ETHANOL_TR = 298.15
+ETHANOL_START = [367.5, 116.0, -3.375, 2900.1, 23.58]  # value12, d1_12, d2_12, value21, d1_21
+
+
+def ethanol_a(p, T):
+    dt = T - ETHANOL_TR
+    return p[0] + p[1] * dt + 0.5 * p[2] * dt * dt, p[3] + p[4] * dt
+
+
+def ethanol_antoine():
+    from chemicals.vapor_pressure import Psat_data_AntoinePoling as D
+    row = D.loc["64-17-5"]
+    return float(row["A"]), float(row["B"]), float(row["C"]), row
+
+
 def ethanol():
-    print("\n== ethanol: Wilson a12, a21 (J/mol) fitted to the Melinder freezing curve (CoolProp INCOMP::MEA)")
-    print("   5-40 mass % in steps of 5, relative dT residuals; V_w/V_e from ChemSep via thermo 0.6.1")
+    print("\n== ethanol: Wilson a12(T), a21(T) (J/mol), V_w/V_e from ChemSep via thermo 0.6.1")
     from thermo.interaction_parameters import IPDB
+    import CoolProp.CoolProp as CP
     C = ["64-17-5", "7732-18-5"]
     la = IPDB.get_ip_asymmetric_matrix(name="ChemSep Wilson", CASs=C, ip="aij")
     lb = IPDB.get_ip_asymmetric_matrix(name="ChemSep Wilson", CASs=C, ip="bij")
@@ -190,51 +249,143 @@ def ethanol():
     print(f"   ChemSep (thermo 0.6.1) Wilson: a12 = {-lb[0][1]*R:.1f} J/mol, a21 = {-lb[1][0]*R:.1f} J/mol, V_w/V_e = {ratio:.6f} -> V_e = {Ve:.3f} cm3/mol for V_w = {Vw}")
     Me = M["ethanol"]
 
-    def lngw(x1, T, a12, a21):
+    def lng(x1, T, a12, a21):
+        """(ln gamma_ethanol, ln gamma_water), Wilson (1964)."""
         x2 = 1 - x1
         L12 = (Vw / Ve) * math.exp(-a12 / (R * T))
         L21 = (Ve / Vw) * math.exp(-a21 / (R * T))
-        return -math.log(x2 + L21 * x1) - x1 * (L12 / (x1 + L12 * x2) - L21 / (x2 + L21 * x1))
+        s1, s2 = x1 + L12 * x2, x2 + L21 * x1
+        d = L12 / s1 - L21 / s2
+        return -math.log(s1) + x2 * d, -math.log(s2) - x1 * d
 
-    def tf(w, a12, a21):
-        return tf_lnaw(w, Me, lambda x, T: math.log(1 - x) + lngw(x, T, a12, a21))
-    cs = (-lb[0][1] * R, -lb[1][0] * R)
-    for w, dt in [(10, 4.47), (20, 10.92), (30, 20.47)]:
-        print(f"   ChemSep set, CRC w={w}: obs {dt} pred {273.15 - tf(w, *cs):.2f}")
+    def G(p):
+        return lambda x, T: lng(x, T, *ethanol_a(p, T))
+
+    def tf(w, p):
+        g = G(p)
+        return tf_lnaw(w, Me, lambda x, T: math.log(1 - x) + g(x, T)[1])
+
+    def isotherm(name):
+        T, rows = VLENOTES[name]
+        p1 = [P for x, P in rows if x == 1.0][0]
+        p2 = [P for x, P in rows if x == 0.0][0]
+        return dict(name=name, T=T, p1=p1, p2=p2, rows=[(x, P) for x, P in rows if 0 < x < 1])
+    pm = dict(name="PM1978 303.15", T=PM1978_303["T"], p1=PM1978_303["p1"], p2=PM1978_303["p2"], rows=[(x, P) for x, y, P in PM1978_303["rows"]])
+    fit_sets = [pm, isotherm("T50"), isotherm("T90")]
+    check_sets = [isotherm("T50_2"), isotherm("T90_2")]
+
+    def p_rel(ds, g, xmax=1.0):
+        """Relative residuals of the bubble pressure x1 g1 p1 + x2 g2 p2 (ideal vapour, the set's own pure pressures)."""
+        out = []
+        for x, P in ds["rows"]:
+            if x > xmax:
+                continue
+            g1, g2 = g(x, ds["T"])
+            out.append((x * math.exp(g1) * ds["p1"] + (1 - x) * math.exp(g2) * ds["p2"]) / P - 1)
+        return np.array(out)
     mel = [(w, 273.15 - melinder("MEA", w)) for w in range(5, 41, 5)]
-    res = lambda p: [(273.15 - tf(w, *p)) / dt - 1 for w, dt in mel]
-    r = least_squares(res, [3356.6, -766.4])
-    a12, a21 = r.x
-    print(f"   fit: a12 = {a12:.1f} J/mol, a21 = {a21:.1f} J/mol; rms rel. vs Melinder {math.sqrt(np.mean(r.fun**2)):.4f}, max {abs(r.fun).max():.4f}")
-    for name, rows in [("CRC", [x for x in CRC["ethanol"] if x[0] <= 40]), ("Lange", [x for x in LANGE_ETHANOL if x[0] <= 40])]:
-        rel = np.array([(273.15 - tf(w, a12, a21)) / dt - 1 for w, dt in rows if dt >= 0.5])
-        print(f"   check vs {name} (<= 40 %): rms rel {math.sqrt(np.mean(rel**2)):.4f}, max {abs(rel).max():.4f}")
-    for w in [10, 20, 30, 40, 50]:
-        print(f"   w={w}: pred {273.15 - tf(w, a12, a21):.2f} K")
-    # 25 C behaviour against CoolProp's Helmholtz mixture model (REFPROP 9.1 parameters)
-    import CoolProp.CoolProp as CP
+    crc = [(w, dt) for w, dt in CRC["ethanol"] if w <= 40 and dt >= 0.5]
+    lange = [(w, dt) for w, dt in LANGE_ETHANOL if w <= 40]
+    SF, SP = 0.01, 0.01  # weights: 1 % on dT_f, 1 % on P
 
-    def aw_heos(x1, T, P=101325.0):
-        AS = CP.AbstractState("HEOS", "Ethanol&Water")
-        AS.set_mole_fractions([x1, 1 - x1])
-        AS.specify_phase(CP.iphase_liquid)
-        AS.update(CP.PT_INPUTS, P, T)
-        W = CP.AbstractState("HEOS", "Water")
-        W.specify_phase(CP.iphase_liquid)
-        W.update(CP.PT_INPUTS, P, T)
-        return AS.fugacity(1) / W.fugacity(0)
-    for x in [0.02, 0.05, 0.1, 0.2]:
-        print(f"   25 C x_e={x}: a_w Wilson-fit {(1-x)*math.exp(lngw(x, 298.15, a12, a21)):.4f}, ChemSep {(1-x)*math.exp(lngw(x, 298.15, *cs)):.4f}, CoolProp HEOS {aw_heos(x, 298.15):.4f}")
+    def res(p):
+        r = [((273.15 - tf(w, p)) / dt - 1) / SF for w, dt in mel + crc]
+        for ds in fit_sets:
+            r += list(p_rel(ds, G(p)) / SP)
+        return np.array(r)
+    print("   fit: a12 = v12 + d1_12 (T - 298.15) + d2_12/2 (T - 298.15)^2, a21 = v21 + d1_21 (T - 298.15);")
+    print(f"   data: Melinder (CoolProp INCOMP::MEA) 5-40 % step 5 ({len(mel)}) + CRC rows <= 40 %, dT >= 0.5 K ({len(crc)}),")
+    print(f"   relative dT / {SF}; P-x at 303.15 (Pemberton & Mash 1978, {len(pm['rows'])}), 323.15 and 363.15 K (vle-notes T50, T90, 23 each), relative P / {SP}")
+    r = least_squares(res, ETHANOL_START, x_scale=[100, 10, 1, 100, 10])
+    p = r.x
+    print(f"   a12: value {p[0]:.1f} J/mol, d1 {p[1]:.3f} J/(mol K), d2 {p[2]:.4f} J/(mol K2); a21: value {p[3]:.1f} J/mol, d1 {p[4]:.3f} J/(mol K)")
+    g = G(p)
+    print("   a12, a21 (J/mol) at T/C:", {t: tuple(int(round(v)) for v in ethanol_a(p, t + 273.15)) for t in [-60, -35, -20, 0, 25, 50, 78, 100]})
+    for name, rows in [("Melinder (fit)", mel), ("CRC (fit)", crc), ("Lange (check)", lange)]:
+        rel = np.array([(273.15 - tf(w, p)) / dt - 1 for w, dt in rows])
+        i = int(np.abs(rel).argmax())
+        print(f"   freezing {name}, n={len(rows)}: rms rel {math.sqrt(np.mean(rel**2)):.4f}, worst {rel[i]:+.4f} at {rows[i][0]} %")
+    print("   freezing dT/K predicted:", {w: round(273.15 - tf(w, p), 2) for w in [10, 16.4, 20, 30, 40, 45, 50]},
+          "(CRC 45 %: ~33.5, 50 %: 37.67; beyond 40 % the fit is not used)")
+    for ds in fit_sets + check_sets:
+        rr = p_rel(ds, g)
+        rs = p_rel(ds, g, 0.35)
+        i = int(np.abs(rr).argmax())
+        tag = "fit" if ds in fit_sets else "check"
+        print(f"   P-x {ds['name']} ({tag}), n={len(rr)}: rms {math.sqrt(np.mean(rr**2)):.4f}, worst {rr[i]:+.4f} at x1={ds['rows'][i][0]}; x1 <= 0.35: rms {math.sqrt(np.mean(rs**2)):.4f}, worst {np.abs(rs).max():.4f}")
+    dy = []
+    for x, y, P in PM1978_303["rows"]:
+        g1, g2 = g(x, 303.15)
+        q1, q2 = x * math.exp(g1) * PM1978_303["p1"], (1 - x) * math.exp(g2) * PM1978_303["p2"]
+        dy.append(q1 / (q1 + q2) - y)
+    dy = np.array(dy)
+    print(f"   y1 at 303.15 K (check, not fitted): rms {math.sqrt(np.mean(dy**2)):.4f}, worst {dy[np.abs(dy).argmax()]:+.4f}")
+
+    A, B, Cc, row = ethanol_antoine()
+    pe = lambda T: 10 ** (A - B / (T + Cc))  # Pa
+    pw = lambda T: CP.PropsSI("P", "T", T, "Q", 0, "Water")  # IAPWS-95 via CoolProp
+
+    def bubble(x, P):
+        def f(T):
+            g1, g2 = g(x, T)
+            return x * math.exp(g1) * pe(T) + (1 - x) * math.exp(g2) * pw(T) - P
+        T = brentq(f, 300.0, 400.0)
+        g1, _ = g(x, T)
+        return T, x * math.exp(g1) * pe(T) / P
+    for name, (P, rows) in [("Beebe 1942, 101.325 kPa", BEEBE_760), ("Kirschbaum 1939, 98.66 kPa", KIRSCHBAUM_1939)]:
+        dT, dyy = [], []
+        for x, y, T in rows:
+            Tb, yb = bubble(x, P)
+            dT.append(Tb - T)
+            dyy.append(yb - y)
+        dT, dyy = np.array(dT), np.array(dyy)
+        print(f"   isobaric check {name}, n={len(dT)} (record's Antoine, IAPWS water): bubble T rms {math.sqrt(np.mean(dT**2)):.2f} K, worst {dT[np.abs(dT).argmax()]:+.2f} K; y1 rms {math.sqrt(np.mean(dyy**2)):.4f}, worst {dyy[np.abs(dyy).argmax()]:+.4f}")
+    print("   bubble T at 101.325 kPa (C):", {x: round(bubble(x, 101325.0)[0] - 273.15, 2) for x in [0.01, 0.05, 0.1, 0.2, 0.5, 0.8, 0.95]})
+    for P in [100000.0, 101325.0]:
+        xs = np.linspace(0.5, 0.999, 200)
+        d = [bubble(x, P)[1] - x for x in xs]
+        az = [brentq(lambda x: bubble(x, P)[1] - x, xs[i], xs[i + 1]) for i in range(len(xs) - 1) if d[i] > 0 >= d[i + 1]]
+        print(f"   azeotrope at {P/1000:g} kPa:", [(round(a, 4), round(bubble(a, P)[0] - 273.15, 2)) for a in az])
+
+    from thermo.unifac import UNIFAC, DOUFSG, DOUFIP2016
+
+    def unifac_do(x1, T):
+        """(a_w, a_e) from Dortmund modified UNIFAC, 2016 parameters (thermo 0.6.1); CH3 + CH2 + OH(P), H2O."""
+        m = UNIFAC.from_subgroups(T=T, xs=[x1, 1 - x1], chemgroups=[{1: 1, 2: 1, 14: 1}, {16: 1}],
+                                  subgroups=DOUFSG, interaction_data=DOUFIP2016, version=1)
+        gg = m.gammas()
+        return (1 - x1) * gg[1], x1 * gg[0]
+    for w in [10, 20, 40]:
+        x = xs_of(w, Me)
+        g1, g2 = g(x, 298.15)
+        uw, ue = unifac_do(x, 298.15)
+        print(f"   25 C, {w} %: a_w {(1-x)*math.exp(g2):.4f} (CoolProp HEOS {aw_heos(x, 298.15):.4f}, Dortmund UNIFAC {uw:.4f}); "
+              f"p_ethanol {x*math.exp(g1)*pe(298.15)/1000:.3f} kPa (Dortmund UNIFAC with the same Antoine {ue*pe(298.15)/1000:.3f})")
+    x = xs_of(20, Me)
+    print("   20 %: a_w(T):", {t: round((1 - x) * math.exp(g(x, t + 273.15)[1]), 4) for t in range(-35, 101, 15)})
+    print("   20 %: gamma_ethanol(T):", {t: round(math.exp(g(x, t + 273.15)[0]), 3) for t in range(-35, 101, 15)},
+          "Dortmund UNIFAC:", {t: round(unifac_do(x, t + 273.15)[1] / x, 3) for t in [-35, 25, 85]})
 
     print("\n== ethanol Antoine: chemicals 1.5.2 'Antoine Collection Poling' (Poling et al. 2001, App. A)")
-    from chemicals.vapor_pressure import Psat_data_AntoinePoling as D
-    row = D.loc["64-17-5"]
-    A, B, Cc = float(row["A"]), float(row["B"]), float(row["C"])
     print(f"   stored (log10 Pa, T in K): A={A}, B={B}, C={Cc}, {row['Tmin']}-{row['Tmax']} K")
     print(f"   log10(p/kPa) = {A-3:.5f} - {B}/(T/K + ({Cc}))  [A - 3 converts Pa to kPa]")
     for t in [25.0, 78.29]:
         T = t + 273.15
         print(f"   p({t} C) = {10**(A - 3 - B/(T + Cc)):.3f} kPa")
+    return p
+
+
+def aw_heos(x1, T, P=101325.0):
+    """a_w of ethanol-water from CoolProp 8.0.0 HEOS (REFPROP 9.1 mixture parameters): f_w / f_w(pure)."""
+    import CoolProp.CoolProp as CP
+    AS = CP.AbstractState("HEOS", "Ethanol&Water")
+    AS.set_mole_fractions([x1, 1 - x1])
+    AS.specify_phase(CP.iphase_liquid)
+    AS.update(CP.PT_INPUTS, P, T)
+    W = CP.AbstractState("HEOS", "Water")
+    W.specify_phase(CP.iphase_liquid)
+    W.update(CP.PT_INPUTS, P, T)
+    return AS.fugacity(1) / W.fugacity(0)
 
 
 # Rows of references.md section 3 (CRC, Wolf 1966) for the electrolytes, kept beside the rest.
@@ -287,18 +438,22 @@ def write_csvs(root):
     for s, (Ms, data) in PYTZER_AW.items():
         for m, a in data:
             aw.append((s, round(100 * m * Ms / (1000 + m * Ms), 4), 25.0, a, "pytzer060", "Lib"))
-    import CoolProp.CoolProp as CP
+    # Ethanol. The source column says whether a row is data of the Wilson fit or independent of it.
     for x in [0.02, 0.05, 0.1, 0.2]:
-        AS = CP.AbstractState("HEOS", "Ethanol&Water")
-        AS.set_mole_fractions([x, 1 - x])
-        AS.specify_phase(CP.iphase_liquid)
-        AS.update(CP.PT_INPUTS, 101325.0, 298.15)
-        W = CP.AbstractState("HEOS", "Water")
-        W.specify_phase(CP.iphase_liquid)
-        W.update(CP.PT_INPUTS, 101325.0, 298.15)
-        a = AS.fugacity(1) / W.fugacity(0)
         w = 100 * x * M["ethanol"] / (x * M["ethanol"] + (1 - x) * MW)
-        aw.append(("ethanol", round(w, 4), 25.0, round(a, 5), "coolprop800_heos", "Lib"))
+        aw.append(("ethanol", round(w, 4), 25.0, round(aw_heos(x, 298.15), 5), "coolprop800_heos (independent)", "Lib"))
+    from thermo.unifac import UNIFAC, DOUFSG, DOUFIP2016
+    for t in [25.0, 50.0]:
+        for x in [0.02, 0.05, 0.1, 0.2]:
+            m = UNIFAC.from_subgroups(T=t + 273.15, xs=[x, 1 - x], chemgroups=[{1: 1, 2: 1, 14: 1}, {16: 1}],
+                                      subgroups=DOUFSG, interaction_data=DOUFIP2016, version=1)
+            w = 100 * x * M["ethanol"] / (x * M["ethanol"] + (1 - x) * MW)
+            aw.append(("ethanol", round(w, 4), t, round((1 - x) * m.gammas()[1], 5), "thermo061_dortmund_unifac (independent)", "Lib"))
+    # Pemberton & Mash (1978) at 303.15 K: a_w = P (1 - y1) / p_w*, ideal vapour (their P is Wilson fit data).
+    for x, y, P in PM1978_303["rows"]:
+        if x <= 0.42:
+            w = 100 * x * M["ethanol"] / (x * M["ethanol"] + (1 - x) * MW)
+            aw.append(("ethanol", round(w, 4), 30.0, round(P * (1 - y) / PM1978_303["p2"], 4), "pemberton_mash1978 (fit data)", "Derived"))
     with open(os.path.join(root, "binary_water_activity.csv"), "w") as f:
         f.write("solute,mass_percent,t_c,water_activity,source,tag\n")
         for r in aw:

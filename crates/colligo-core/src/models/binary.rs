@@ -19,9 +19,14 @@ pub enum Binary {
         nu: f64,
     },
     /// Norrish (1966): ln a_w = ln(1 − x) − K x², x = m M_w/(1 + m M_w).
+    /// A negative K makes the curve turn back up at high x; beyond the data
+    /// (x > `x_max`) the excess term is held at its edge value, so the
+    /// curve goes on falling like Raoult's law.
     Norrish {
         /// K at the current temperature.
         k: f64,
+        /// Highest mole fraction of the data behind K.
+        x_max: f64,
     },
     /// Pitzer single salt.
     Pitzer(PitzerBinary),
@@ -38,11 +43,15 @@ impl Binary {
                 let u = 1.0 + nu * m * M_W;
                 (-u.ln(), -nu * M_W / u)
             }
-            Binary::Norrish { k } => {
+            Binary::Norrish { k, x_max } => {
                 let u = 1.0 + m * M_W;
                 let x = m * M_W / u;
                 let dx = M_W / (u * u);
-                (-u.ln() - k * x * x, (-u - 2.0 * k * x) * dx)
+                if *k < 0.0 && x > *x_max {
+                    (-u.ln() - k * x_max * x_max, -u * dx)
+                } else {
+                    (-u.ln() - k * x * x, (-u - 2.0 * k * x) * dx)
+                }
             }
             Binary::Pitzer(p) => pitzer_ln_aw_dm(p, m),
             Binary::Wilson(w) => {
@@ -58,10 +67,11 @@ impl Binary {
     pub fn ln_aw(&self, m: f64) -> f64 {
         match self {
             Binary::Ideal { nu } => -(nu * m * M_W).ln_1p(),
-            Binary::Norrish { k } => {
+            Binary::Norrish { k, x_max } => {
                 let u = 1.0 + m * M_W;
                 let x = m * M_W / u;
-                -u.ln() - k * x * x
+                let xe = if *k < 0.0 { x.min(*x_max) } else { x };
+                -u.ln() - k * xe * xe
             }
             Binary::Pitzer(p) => p.ln_aw(m),
             Binary::Wilson(w) => w.ln_aw(m),
@@ -120,14 +130,7 @@ impl Binary {
 /// ln a_w and d/dm for a Pitzer binary (analytic, Pitzer 1991 ch. 3).
 #[inline]
 fn pitzer_ln_aw_dm(p: &PitzerBinary, m: f64) -> (f64, f64) {
-    let nu = p.nc + p.na;
-    if m <= 0.0 {
-        return (0.0, -nu * M_W);
-    }
-    let h = 1e-6 * m.max(1e-6);
-    let f = p.ln_aw(m);
-    let f2 = p.ln_aw(m + h);
-    (f, (f2 - f) / h)
+    p.ln_aw_dm(m)
 }
 
 /// Wilson (1964) activity of water in a co-solvent (1) + water (2) binary,
@@ -201,7 +204,10 @@ pub fn best_binary(lib: &Library, solute: usize, t_k: f64) -> Binary {
     if !s.is_electrolyte()
         && let Some(n) = &s.record.norrish
     {
-        return Binary::Norrish { k: n.k_at(t_k) };
+        return Binary::Norrish {
+            k: n.k_at(t_k),
+            x_max: n.max_mole_fraction,
+        };
     }
     Binary::Ideal { nu: s.nu }
 }
@@ -214,8 +220,18 @@ mod tests {
     fn inverse_round_trips() {
         for b in [
             Binary::Ideal { nu: 2.0 },
-            Binary::Norrish { k: 6.47 },
-            Binary::Norrish { k: -1.0 },
+            Binary::Norrish {
+                k: 6.47,
+                x_max: 0.1,
+            },
+            Binary::Norrish {
+                k: -1.0,
+                x_max: 0.1,
+            },
+            Binary::Norrish {
+                k: -2.85,
+                x_max: 0.05,
+            },
         ] {
             for m in [0.01, 0.5, 2.0, 5.0] {
                 let y = b.ln_aw(m);
@@ -226,8 +242,26 @@ mod tests {
     }
 
     #[test]
+    fn negative_k_binary_keeps_falling_beyond_its_data() {
+        let b = Binary::Norrish {
+            k: -2.85,
+            x_max: 0.05,
+        };
+        let mut last = 0.0;
+        for i in 1..200 {
+            let m = 0.2 * f64::from(i);
+            let (f, d) = b.ln_aw_dm(m);
+            assert!(f < last && d < 0.0, "m = {m}");
+            last = f;
+        }
+    }
+
+    #[test]
     fn norrish_derivative_matches_finite_difference() {
-        let b = Binary::Norrish { k: 6.47 };
+        let b = Binary::Norrish {
+            k: 6.47,
+            x_max: 0.1,
+        };
         let (_, d) = b.ln_aw_dm(1.3);
         let h = 1e-6;
         let fd = (b.ln_aw(1.3 + h) - b.ln_aw(1.3 - h)) / (2.0 * h);

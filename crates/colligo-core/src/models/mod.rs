@@ -170,6 +170,7 @@ pub struct Evaluator<'l> {
     // Caches at temperature `t`.
     t: f64,
     signed_sqrt_k: Vec<f64>,
+    norrish_x_max: Vec<f64>,
     binaries: Vec<Binary>,
     wilson: Vec<Option<WilsonBinary>>,
     solubility: Vec<f64>,
@@ -177,7 +178,12 @@ pub struct Evaluator<'l> {
     dissolved: Vec<f64>,
     ion_m: Vec<f64>,
     zsr_m: Vec<f64>,
+    scratch: Vec<(usize, f64, f64)>,
+    /// Last converged ZSR solution y; `zsr_m` holds its m_i°.
+    zsr_warm: Option<f64>,
     last_ln_aw: f64,
+    /// Number of model evaluations so far (for tests and benchmarks).
+    pub evaluations: usize,
 }
 
 /// Picks the model `auto` uses for a composition, and says why.
@@ -296,13 +302,17 @@ impl<'l> Evaluator<'l> {
             comps,
             t: f64::NAN,
             signed_sqrt_k: vec![0.0; n],
+            norrish_x_max: vec![f64::INFINITY; n],
             binaries: vec![Binary::Ideal { nu: 1.0 }; n],
             wilson: vec![None; n],
             solubility: vec![f64::INFINITY; n],
             dissolved: vec![0.0; n],
             ion_m: vec![0.0; n_ions],
             zsr_m: vec![f64::NAN; n],
+            scratch: Vec::with_capacity(n),
+            zsr_warm: None,
             last_ln_aw: f64::NAN,
+            evaluations: 0,
         }
     }
 
@@ -340,20 +350,49 @@ impl<'l> Evaluator<'l> {
             return;
         }
         let lib = self.lib;
+        // Pitzer parameters first: salt binaries share the mixture's values.
+        self.pitzer.set_t(lib, t_k);
+        let aphi = self.pitzer.aphi_now();
+        let first = self.t.is_nan();
         for (i, c) in self.comps.iter().enumerate() {
             let s = &lib.solutes[c.solute];
-            self.signed_sqrt_k[i] = match (&s.record.norrish, c.role) {
-                (Some(n), Role::NonElectrolyte) => {
-                    let k = n.k_at(t_k);
-                    k.signum() * k.abs().sqrt()
+            if first {
+                self.binaries[i] = best_binary(lib, c.solute, t_k);
+            }
+            match &mut self.binaries[i] {
+                Binary::Pitzer(p) => match self.pitzer.pair_now(p.pair) {
+                    Some(at) => p.set_values(at, aphi, t_k),
+                    None => p.set_t(lib, t_k),
+                },
+                Binary::Norrish { k, .. } => {
+                    if let Some(n) = &s.record.norrish
+                        && (first || !n.k.is_constant())
+                    {
+                        *k = n.k_at(t_k);
+                    }
                 }
-                _ => 0.0,
+                Binary::Wilson(w) => {
+                    if let Some(v) = s.volatile() {
+                        *w = WilsonBinary::new(v, t_k);
+                    }
+                }
+                Binary::Ideal { .. } => {}
+            }
+            (self.signed_sqrt_k[i], self.norrish_x_max[i]) = match (&self.binaries[i], c.role) {
+                (Binary::Norrish { k, x_max }, Role::NonElectrolyte) => (
+                    k.signum() * k.abs().sqrt(),
+                    if *k < 0.0 { *x_max } else { f64::INFINITY },
+                ),
+                _ => (0.0, f64::INFINITY),
             };
-            self.binaries[i] = best_binary(lib, c.solute, t_k);
-            self.wilson[i] = s.volatile().map(|v| WilsonBinary::new(v, t_k));
-            self.solubility[i] = s.solubility_molality(t_k).map_or(f64::INFINITY, |(m, _)| m);
+            self.wilson[i] = match &self.binaries[i] {
+                Binary::Wilson(w) => Some(*w),
+                _ => None,
+            };
+            if s.record.solubility.is_some() {
+                self.solubility[i] = s.solubility_molality(t_k).map_or(f64::INFINITY, |(m, _)| m);
+            }
         }
-        self.pitzer.set_t(lib, t_k);
         self.t = t_k;
     }
 
@@ -400,6 +439,7 @@ impl<'l> Evaluator<'l> {
     /// in `water_kg` of water. This is the hot path.
     pub fn ln_aw_of(&mut self, t_k: f64, water_kg: f64, dissolved: &[f64]) -> f64 {
         self.set_t(t_k);
+        self.evaluations += 1;
         if water_kg <= 0.0 {
             return f64::NEG_INFINITY;
         }
@@ -433,18 +473,24 @@ impl<'l> Evaluator<'l> {
         s
     }
 
+    /// Ferro Fontán & Chirife: ln a_w = ln x_w − (Σ ±√|K_i| x_i)², the sign
+    /// of each term that of K_i. A negative-K solute's x_i is held at the
+    /// edge of its data (as in its binary), so the rule stays monotonic.
     fn norrish(&self, w: f64, d: &[f64]) -> f64 {
         let nw = w / M_W;
         let mut particles = 0.0;
-        let mut sk = 0.0;
         for (i, c) in self.comps.iter().enumerate() {
-            if c.role == Role::Volatile {
-                continue;
+            if c.role != Role::Volatile {
+                particles += c.nu * d[i];
             }
-            particles += c.nu * d[i];
-            sk += self.signed_sqrt_k[i] * d[i];
         }
-        let sx = sk / (nw + particles);
+        let ntot = nw + particles;
+        let mut sx = 0.0;
+        for (i, c) in self.comps.iter().enumerate() {
+            if c.role != Role::Volatile && self.signed_sqrt_k[i] != 0.0 {
+                sx += self.signed_sqrt_k[i] * (d[i] / ntot).min(self.norrish_x_max[i]);
+            }
+        }
         // ln x_w = −ln(1 + n/n_w), written with ln_1p to keep precision at
         // infinite dilution.
         -(particles / nw).ln_1p() - sx.signum() * sx * sx + self.volatile_ln_aw(w, d)
@@ -475,28 +521,126 @@ impl<'l> Evaluator<'l> {
         -M_W * phi * sum - (M_W * ideal).ln_1p() + self.volatile_ln_aw(w, d)
     }
 
-    /// ZSR: solve Σ m_i / m_i°(y) = 1 for y = ln a_w by Newton, warm-started
-    /// from the last answer (or from Ross's rule), each m_i° by safeguarded
-    /// Newton warm-started from the previous iteration.
+    /// ZSR: solve Σ m_i / m_i°(y) = 1 with b_i(m_i°) = y for y = ln a_w.
+    ///
+    /// All n + 1 unknowns (y and every m_i°) are solved together by Newton's
+    /// method on the arrow-shaped system r_i = b_i(m_i°) − y = 0,
+    /// G = Σ m_i/m_i° − 1 = 0, which costs one binary evaluation per solute
+    /// per iteration. Start: Ross's rule for y and m_i° = m_i y / b_i(m_i).
+    /// If Newton stalls, the nested solve ([`Binary::molality_at`] inside a
+    /// bracketed outer iteration) takes over.
     fn zsr(&mut self, w: f64, d: &[f64]) -> f64 {
         let n = self.comps.len();
+        let active = (0..n).filter(|&i| d[i] > 0.0).count();
+        if active <= 1 {
+            return (0..n)
+                .filter(|&i| d[i] > 0.0)
+                .map(|i| self.binaries[i].ln_aw(d[i] / w))
+                .sum();
+        }
+        // Warm start: the last solution's y and m_i° still satisfy every
+        // b_i(m_i°) = y (they do not depend on the composition), so from a
+        // neighbouring composition only Σ m_i/m_i° = 1 is off and Newton
+        // needs two or three steps.
+        let warm = self.zsr_warm.is_some()
+            && (0..n).all(|i| d[i] <= 0.0 || (self.zsr_m[i].is_finite() && self.zsr_m[i] > 0.0));
+        let mut y;
+        if warm {
+            y = self.zsr_warm.unwrap_or(0.0);
+        } else {
+            y = 0.0;
+            for i in 0..n {
+                let m = d[i] / w;
+                if m > 0.0 {
+                    let bi = self.binaries[i].ln_aw(m);
+                    self.zsr_m[i] = bi; // temporarily b_i(m_i)
+                    y += bi;
+                }
+            }
+            for i in 0..n {
+                let m = d[i] / w;
+                if m > 0.0 {
+                    let bi = self.zsr_m[i];
+                    self.zsr_m[i] = if bi < 0.0 {
+                        m * y / bi
+                    } else {
+                        m * active as f64
+                    };
+                }
+            }
+        }
+        self.zsr_warm = None;
+        for _ in 0..30 {
+            let mut g = -1.0;
+            let mut num = 0.0;
+            let mut den = 0.0;
+            let mut worst_r: f64 = 0.0;
+            for i in 0..n {
+                let m = d[i] / w;
+                if m <= 0.0 {
+                    continue;
+                }
+                let mu = self.zsr_m[i];
+                let (b, db) = self.binaries[i].ln_aw_dm(mu);
+                let r = b - y;
+                worst_r = worst_r.max(r.abs());
+                g += m / mu;
+                let c = m / (mu * mu * db);
+                num += c * r;
+                den += c;
+                // Keep r_i and b_i' for the update below.
+                self.scratch.push((i, r, db));
+            }
+            if g.abs() < 1e-13 && worst_r < 1e-13 {
+                self.scratch.clear();
+                self.zsr_warm = Some(y);
+                return y;
+            }
+            let dy = (g + num) / den;
+            if !dy.is_finite() || den == 0.0 {
+                self.scratch.clear();
+                break;
+            }
+            // Damp the step so that y stays < 0 and every m_i° > 0.
+            let mut lam: f64 = 1.0;
+            if y + dy >= 0.0 {
+                lam = 0.5 * y / -dy;
+            }
+            for &(i, r, db) in &self.scratch {
+                let full = (dy - r) / db;
+                let mu = self.zsr_m[i];
+                if mu + lam * full <= 0.0 {
+                    lam = 0.5 * mu / -full;
+                }
+            }
+            y += lam * dy;
+            for &(i, r, db) in &self.scratch {
+                self.zsr_m[i] += lam * (dy - r) / db;
+            }
+            self.scratch.clear();
+            if !y.is_finite() {
+                break;
+            }
+        }
+        let y = self.zsr_nested(w, d);
+        self.zsr_warm = y.is_finite().then_some(y);
+        y
+    }
+
+    /// The nested ZSR solve: bracketed Newton on y with each m_i° found by
+    /// safeguarded Newton. Slower, but robust where the coupled Newton
+    /// stalls (binaries turning back at extreme molality).
+    fn zsr_nested(&mut self, w: f64, d: &[f64]) -> f64 {
+        let n = self.comps.len();
+        let mut y: f64 = 0.0;
         let mut active = 0;
-        let mut ross = 0.0;
         for i in 0..n {
             let m = d[i] / w;
             if m > 0.0 {
                 active += 1;
-                ross += self.binaries[i].ln_aw(m);
+                y += self.binaries[i].ln_aw(m);
             }
         }
-        if active == 0 {
-            return 0.0;
-        }
-        if active == 1 {
-            return ross;
-        }
-        let mut y = ross;
-        // Initial m° guesses: binary curves are close to linear in m.
         for i in 0..n {
             let m = d[i] / w;
             if m > 0.0 {
@@ -509,7 +653,7 @@ impl<'l> Evaluator<'l> {
             }
         }
         let (mut lo, mut hi) = (f64::NEG_INFINITY, 0.0_f64);
-        for _ in 0..60 {
+        for _ in 0..200 {
             let mut g = -1.0;
             let mut dg = 0.0;
             let mut ok = true;
@@ -522,7 +666,6 @@ impl<'l> Evaluator<'l> {
                     Some((m0, dlna_dm)) if m0 > 0.0 => {
                         self.zsr_m[i] = m0;
                         g += m / m0;
-                        // d(m/m0)/dy = −m/m0² · dm0/dy, dm0/dy = 1/(d ln a/dm)
                         dg += -m / (m0 * m0) / dlna_dm;
                     }
                     _ => {
@@ -534,14 +677,9 @@ impl<'l> Evaluator<'l> {
             if !ok {
                 // Some binary cannot reach y: y is too low.
                 lo = y;
-                y = if hi.is_finite() {
-                    0.5 * (lo + hi)
-                } else {
-                    0.5 * y
-                };
+                y = 0.5 * (lo + hi);
                 continue;
             }
-            // g increases with y.
             if g > 0.0 {
                 hi = y;
             } else {
@@ -608,6 +746,11 @@ impl<'l> Evaluator<'l> {
                 h * u * M_W
             })
             .sum()
+    }
+
+    /// ln a_w of the last evaluation (NaN before the first).
+    pub fn last_ln_aw(&self) -> f64 {
+        self.last_ln_aw
     }
 
     /// Dissolved amounts of the last [`Evaluator::dissolve`] or

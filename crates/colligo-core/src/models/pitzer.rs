@@ -249,6 +249,8 @@ pub struct PitzerBinary {
     pub nc: f64,
     /// Anions per formula unit.
     pub na: f64,
+    /// Highest molality of the data; beyond it φ is held at its edge value.
+    pub m_max: f64,
     at: PairAtT,
     aphi: f64,
     t: f64,
@@ -270,6 +272,7 @@ impl PitzerBinary {
             za: lib.ions[anion].z,
             nc,
             na,
+            m_max: lib.pitzer.pairs[pair].max_molality,
             at: PairAtT::default(),
             aphi: 0.0,
             t: f64::NAN,
@@ -283,6 +286,14 @@ impl PitzerBinary {
             self.aphi = aphi(t_k);
             self.t = t_k;
         }
+    }
+
+    /// Sets the temperature-dependent values directly (shared with a
+    /// [`PitzerMixture`] that already evaluated them at `t_k`).
+    pub fn set_values(&mut self, at: PairAtT, aphi: f64, t_k: f64) {
+        self.at = at;
+        self.aphi = aphi;
+        self.t = t_k;
     }
 
     /// Osmotic coefficient at molality `m` (mol of salt per kg water).
@@ -300,10 +311,60 @@ impl PitzerBinary {
         1.0 + 2.0 * (dh(self.aphi, i, s) + mc * ma * self.at.bphi_zc(s, z)) / sum
     }
 
-    /// ln a_w at molality `m`.
+    /// ln a_w at molality `m`. Beyond the data (m > `m_max`) the osmotic
+    /// coefficient is held at its value at `m_max`, so that the binary stays
+    /// monotonic when a mixing rule reaches far past it.
     #[inline]
     pub fn ln_aw(&self, m: f64) -> f64 {
-        -self.phi(m) * M_W * (self.nc + self.na) * m
+        let phi = self.phi(m.min(self.m_max));
+        -phi * M_W * (self.nc + self.na) * m
+    }
+
+    /// ln a_w and d ln a_w/dm at molality `m`, analytically:
+    /// ln a_w = −M_w [ν m + 2 (DH(I) + m_c m_a (B^φ + Z C))], with I, Z, m_c,
+    /// m_a all proportional to m.
+    #[inline]
+    pub fn ln_aw_dm(&self, m: f64) -> (f64, f64) {
+        let nu = self.nc + self.na;
+        if m <= 0.0 {
+            return (0.0, -M_W * nu);
+        }
+        if m > self.m_max {
+            let phi = self.phi(self.m_max);
+            return (-phi * M_W * nu * m, -phi * M_W * nu);
+        }
+        let ki = 0.5 * (self.nc * self.zc * self.zc + self.na * self.za * self.za);
+        let kz = self.nc * self.zc.abs() + self.na * self.za.abs();
+        let kca = self.nc * self.na;
+        let i = ki * m;
+        let s = i.sqrt();
+        let z = kz * m;
+        let at = &self.at;
+        // Debye–Hückel term and its derivative in I.
+        let den = 1.0 + B * s;
+        let dh = -self.aphi * i * s / den;
+        let ddh_di = -self.aphi * (1.5 * s + B * i) / (den * den);
+        // B^φ + Z C and its derivative in m (ds/dm = ki / (2 s)).
+        let e1 = (-at.a1 * s).exp();
+        let e2 = if at.b2 != 0.0 {
+            (-at.a2 * s).exp()
+        } else {
+            0.0
+        };
+        let ew = if at.c1 != 0.0 {
+            (-at.omega * s).exp()
+        } else {
+            0.0
+        };
+        let c = at.c0 + at.c1 * ew;
+        let x = at.b0 + at.b1 * e1 + at.b2 * e2 + z * c;
+        let ds_dm = ki / (2.0 * s);
+        let dx_dm =
+            (-at.a1 * at.b1 * e1 - at.a2 * at.b2 * e2 - z * at.omega * at.c1 * ew) * ds_dm + kz * c;
+        let mm = kca * m * m;
+        let f = nu * m + 2.0 * (dh + mm * x);
+        let df = nu + 2.0 * (ddh_di * ki + 2.0 * kca * m * x + mm * dx_dm);
+        (-M_W * f, -M_W * df)
     }
 }
 
@@ -319,6 +380,8 @@ pub struct PitzerMixture {
     likes: Vec<(usize, usize, Option<usize>, bool)>,
     /// `(i, j, k, ψ record)`.
     psis: Vec<(usize, usize, usize, usize)>,
+    /// Ionic strength of each pair's salt at its highest fitted molality.
+    pair_i_max: Vec<f64>,
     // Temperature-dependent values.
     t: f64,
     aphi: f64,
@@ -366,7 +429,18 @@ impl PitzerMixture {
                 }
             }
         }
+        let pair_i_max: Vec<f64> = pairs
+            .iter()
+            .map(|&(c, a, p)| {
+                // A salt of ν_c cations and ν_a anions at molality m has
+                // I = ½ m (ν_c z_c² + ν_a z_a²), with ν_c z_c = −ν_a z_a.
+                let (zc, za) = (z[c], -z[a]);
+                let (nc, na) = (za / gcd(zc, za), zc / gcd(zc, za));
+                0.5 * lib.pitzer.pairs[p].max_molality * (nc * zc * zc + na * za * za)
+            })
+            .collect();
         PitzerMixture {
+            pair_i_max,
             ions,
             z,
             pair_at: vec![PairAtT::default(); pairs.len()],
@@ -409,7 +483,24 @@ impl PitzerMixture {
         self.t = t_k;
     }
 
-    /// Σm(φ − 1) − 0 … returns `(φ, Σm)` for ion molalities `m` (local order).
+    /// A_φ at the current temperature.
+    pub fn aphi_now(&self) -> f64 {
+        self.aphi
+    }
+
+    /// The values of library pair `rec` at the current temperature, when
+    /// this mixture has that pair.
+    pub fn pair_now(&self, rec: usize) -> Option<PairAtT> {
+        self.pairs
+            .iter()
+            .position(|p| p.2 == rec)
+            .map(|i| self.pair_at[i])
+    }
+
+    /// `(φ, Σm)` for ion molalities `m` (local order). Beyond the ionic
+    /// strength of the data behind the parameters, φ is held at its value
+    /// on the edge of the data (the mixture scaled down to that ionic
+    /// strength), so that a_w keeps falling as the solution concentrates.
     pub fn phi(&self, m: &[f64]) -> (f64, f64) {
         let mut i = 0.0;
         let mut zsum = 0.0;
@@ -423,23 +514,50 @@ impl PitzerMixture {
             return (1.0, 0.0);
         }
         i *= 0.5;
+        // The data limit of the mixture: each pair's limit weighted by the
+        // product of its ion molalities (exact for a single salt).
+        let (mut wsum, mut wi) = (0.0, 0.0);
+        for (&(c, a, _), &imax) in self.pairs.iter().zip(&self.pair_i_max) {
+            let w = m[c] * m[a];
+            wsum += w;
+            wi += w * imax;
+        }
+        let i_max = if wsum > 0.0 { wi / wsum } else { f64::INFINITY };
+        if i > i_max {
+            let k = i_max / i;
+            return (self.phi_scaled(m, k, i * k, zsum * k, sum * k), sum);
+        }
+        (self.phi_scaled(m, 1.0, i, zsum, sum), sum)
+    }
+
+    fn phi_scaled(&self, m: &[f64], k: f64, i: f64, zsum: f64, sum: f64) -> f64 {
         let s = i.sqrt();
         let mut acc = dh(self.aphi, i, s);
+        let k2 = k * k;
+        let k3 = k2 * k;
         for (v, &(c, a, _)) in self.pair_at.iter().zip(&self.pairs) {
-            acc += m[c] * m[a] * v.bphi_zc(s, zsum);
+            acc += m[c] * m[a] * k2 * v.bphi_zc(s, zsum);
         }
         for (th, &(a, b, _, unsym)) in self.theta_at.iter().zip(&self.likes) {
             let mut phi_ij = *th;
             if unsym && i > 0.0 {
                 phi_ij += etheta_phi(self.z[a], self.z[b], self.aphi, i, s);
             }
-            acc += m[a] * m[b] * phi_ij;
+            acc += m[a] * m[b] * k2 * phi_ij;
         }
-        for (ps, &(a, b, k, _)) in self.psi_at.iter().zip(&self.psis) {
-            acc += m[a] * m[b] * m[k] * ps;
+        for (ps, &(a, b, c, _)) in self.psi_at.iter().zip(&self.psis) {
+            acc += m[a] * m[b] * m[c] * ps * k3;
         }
-        (1.0 + 2.0 * acc / sum, sum)
+        1.0 + 2.0 * acc / sum
     }
+}
+
+fn gcd(a: f64, b: f64) -> f64 {
+    let (mut a, mut b) = (a.round().abs() as u32, b.round().abs() as u32);
+    while b != 0 {
+        (a, b) = (b, a % b);
+    }
+    f64::from(a.max(1))
 }
 
 /// Eθ + I Eθ′ for ions of charges `zi`, `zj` (Pitzer 1975; Pitzer 1991
@@ -456,6 +574,44 @@ fn etheta_phi(zi: f64, zj: f64, aphi: f64, i: f64, s: f64) -> f64 {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn binary_derivative_matches_finite_difference() {
+        let lib = crate::Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        for id in [
+            "sodium_chloride",
+            "calcium_chloride",
+            "sodium_sulfate",
+            "magnesium_chloride",
+        ] {
+            let s = &lib.solutes[lib.solute(id).unwrap_or(0)];
+            let Some(pair) = s.pair else { continue };
+            let (c, nc) = s
+                .ions
+                .iter()
+                .copied()
+                .find(|(i, _)| lib.ions[*i].z > 0.0)
+                .unwrap_or((0, 1.0));
+            let (a, na) = s
+                .ions
+                .iter()
+                .copied()
+                .find(|(i, _)| lib.ions[*i].z < 0.0)
+                .unwrap_or((0, 1.0));
+            let mut b = PitzerBinary::new(&lib, pair, c, a, nc, na);
+            b.set_t(&lib, 290.0);
+            for m in [0.01, 0.3, 1.0, 3.0] {
+                let h = 1e-6 * m;
+                let fd = (b.ln_aw(m + h) - b.ln_aw(m - h)) / (2.0 * h);
+                let (f, d) = b.ln_aw_dm(m);
+                assert!((f - b.ln_aw(m)).abs() < 1e-14, "{id} {m}");
+                assert!(
+                    (d - fd).abs() < 1e-7 * fd.abs().max(1.0),
+                    "{id} {m}: {d} vs {fd}"
+                );
+            }
+        }
+    }
 
     #[test]
     fn aphi_at_25c() {
