@@ -6,7 +6,7 @@ use colligo_core::composition::Composition;
 use colligo_core::formula::{Formula, Line};
 use colligo_core::models::{CapMode, Evaluator, ModelId};
 use colligo_core::properties::{self, Conditions, Wanted};
-use colligo_core::sweep::{linspace, quick_sweep};
+use colligo_core::sweep::{linspace, quick_sweep, quick_sweeps};
 use colligo_core::water::T_ZERO_C;
 use colligo_core::{Library, Project};
 use criterion::{Criterion, criterion_group, criterion_main};
@@ -112,39 +112,36 @@ fn benches(c: &mut Criterion) {
         })
     });
 
+    // Each ingredient swept over the range the workbench opens on: 0 to
+    // twice its amount (water: half to one and a half times).
+    let ranges = |f: &Formula| -> Vec<(String, Vec<f64>)> {
+        let r = f.resolve(&lib).unwrap_or_else(|e| panic!("{e}"));
+        f.lines
+            .iter()
+            .zip(&r.line_kg)
+            .take(8)
+            .map(|(l, &kg)| {
+                let (lo, hi) = if l.ingredient == "water" { (0.5 * kg, 1.5 * kg) } else { (0.0, 2.0 * kg) };
+                (l.ingredient.clone(), linspace(lo, hi, 200))
+            })
+            .collect()
+    };
+    let r12 = ranges(&f12);
+    c.bench_function("8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, serial", |b| {
+        b.iter(|| {
+            for (id, a) in &r12 {
+                black_box(quick_sweep(&lib, &f12, id, a, ModelId::Auto, t, true).ok());
+            }
+        })
+    });
+    c.bench_function("8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, all cores", |b| {
+        b.iter(|| black_box(quick_sweeps(&lib, &f12, &r12, ModelId::Auto, t, true).ok()))
+    });
     let spread = sample(&lib, "reduced_sugar_spread");
-    let mut ids: Vec<String> = f12.lines.iter().map(|l| l.ingredient.clone()).collect();
-    ids.truncate(8);
-    let amounts = linspace(0.0, 0.2, 200);
-    c.bench_function(
-        "8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes",
-        |b| {
-            b.iter(|| {
-                for id in &ids {
-                    black_box(quick_sweep(&lib, &f12, id, &amounts, ModelId::Auto, t, true).ok());
-                }
-            })
-        },
-    );
-    let spread_ids: Vec<String> = spread
-        .lines
-        .iter()
-        .map(|l| l.ingredient.clone())
-        .chain(["water".to_string(), "sodium_chloride".to_string()])
-        .take(8)
-        .collect();
-    c.bench_function(
-        "8 ingredients x 200-point sweeps, a_w + freezing point, spread sample",
-        |b| {
-            b.iter(|| {
-                for id in &spread_ids {
-                    black_box(
-                        quick_sweep(&lib, &spread, id, &amounts, ModelId::Auto, t, true).ok(),
-                    );
-                }
-            })
-        },
-    );
+    let rs = ranges(&spread);
+    c.bench_function("sweeps of every ingredient (6) x 200 points, spread sample, all cores", |b| {
+        b.iter(|| black_box(quick_sweeps(&lib, &spread, &rs, ModelId::Auto, t, true).ok()))
+    });
 }
 
 criterion_group! {

@@ -36,6 +36,7 @@ fn main() {
                     .unwrap()
                     .water_activity;
             }
+            "icecurve" => { let p = Project::load(std::path::Path::new("samples/ice_cream_mix.ron"), &lib).unwrap(); let c = p.active().composition(&lib).unwrap(); let temps: Vec<f64> = (0..80).map(|i| 272.65 - 0.5 * i as f64).collect(); acc += freezing_curve(&lib, &c, ModelId::Auto, &cond, &temps).unwrap().points.len() as f64; }
             "curve" => {
                 let temps: Vec<f64> = (0..80).map(|i| 272.65 - 0.5 * i as f64).collect();
                 acc += freezing_curve(&lib, &comp, ModelId::Auto, &cond, &temps)

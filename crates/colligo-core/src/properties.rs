@@ -13,7 +13,7 @@ use serde::Serialize;
 use crate::composition::Composition;
 use crate::error::{ModelError, SolverError};
 use crate::library::{Library, SoluteKind};
-use crate::models::binary::{Binary, WilsonBinary, antoine_pa};
+use crate::models::binary::{WilsonBinary, antoine_pa};
 use crate::models::{CapMode, Evaluator, ModelId, Role, auto_choice};
 use crate::solver::{SolveOptions, solve_warm};
 use crate::warnings::Warning;
@@ -195,6 +195,8 @@ pub struct WarmStart {
     pub t_last: f64,
     /// The answer before it, `(T, ln(w/W))`, for extrapolation.
     pub prev: Option<(f64, f64)>,
+    /// The answer before that.
+    pub prev2: Option<(f64, f64)>,
 }
 
 /// Freezing point, K, of the composition prepared in `ev`, with `before`
@@ -207,10 +209,7 @@ pub fn freezing_point(
     before: &[f64],
     warm: Option<f64>,
 ) -> Result<f64, ModelError> {
-    let mode = CapMode::Freezing {
-        before: before.to_vec(),
-    };
-    freezing_point_with(ev, &mode, warm)
+    freezing_point_with(ev, &CapMode::Freezing { before }, warm)
 }
 
 /// Freezing point, K, with amounts capped by `mode` at each trial temperature.
@@ -306,9 +305,7 @@ pub fn ice_fraction(
     warm: &mut WarmStart,
 ) -> Result<IcePoint, ModelError> {
     let w_total = ev.water_kg;
-    let mode = CapMode::Freezing {
-        before: before.to_vec(),
-    };
+    let mode = CapMode::Freezing { before };
     let ln_ice = water::ice_equilibrium_ln_aw(t_k);
     let t_c = t_k - T_ZERO_C;
     let below_known = warm.known_freezing_k.is_some_and(|tf| t_k < tf - 1e-6);
@@ -360,17 +357,33 @@ pub fn ice_fraction(
     } else {
         -ln_ice
     };
-    let x0 = match (warm.ln_liquid, warm.prev) {
-        (Some(u1), Some((t0, u0))) if warm.t_last != t0 => {
+    let x0 = match (warm.ln_liquid, warm.prev, warm.prev2) {
+        // Quadratic through the last three answers (Lagrange form).
+        (Some(u2), Some((t1, u1)), Some((t0, u0))) if warm.t_last != t1 && t1 != t0 && warm.t_last != t0 => {
+            let t2 = warm.t_last;
+            let l0 = (t_k - t1) * (t_k - t2) / ((t0 - t1) * (t0 - t2));
+            let l1 = (t_k - t0) * (t_k - t2) / ((t1 - t0) * (t1 - t2));
+            let l2 = (t_k - t0) * (t_k - t1) / ((t2 - t0) * (t2 - t1));
+            u0 * l0 + u1 * l1 + u2 * l2
+        }
+        (Some(u1), Some((t0, u0)), _) if warm.t_last != t0 => {
             u1 + (u1 - u0) * (t_k - warm.t_last) / (warm.t_last - t0)
         }
-        (Some(u1), _) => u1,
-        _ => -0.7,
+        (Some(u1), _, _) => u1,
+        // Dilute-solution estimate: ln a_w scales with 1/w, so the liquid
+        // share is ln a_w(all liquid) / ln a_w,ice(T).
+        _ => {
+            let y_all = match warm.known_freezing_k {
+                Some(tf) => water::ice_equilibrium_ln_aw(tf),
+                None => f_all_liquid + ln_ice,
+            };
+            if y_all < 0.0 && ln_ice < 0.0 { (y_all / ln_ice).ln() } else { -0.7 }
+        }
     }
     .clamp(u_floor, -1e-9);
     let opts = SolveOptions {
-        x_tol: 1e-8,
-        f_tol: 1e-11,
+        x_tol: 1e-7,
+        f_tol: 1e-10,
         max_iter: 100,
     };
     let (root, slope) =
@@ -379,6 +392,7 @@ pub fn ice_fraction(
             source: e,
         })?;
     if let Some(u1) = warm.ln_liquid {
+        warm.prev2 = warm.prev;
         warm.prev = Some((warm.t_last, u1));
     }
     warm.t_last = t_k;
@@ -387,12 +401,7 @@ pub fn ice_fraction(
     let liquid = w_total * root.x.exp();
     // Crystal hydrate formed above the eutectic binds water too.
     ev.dissolve(t_k, liquid, &mode);
-    let undissolved: Vec<f64> = before
-        .iter()
-        .zip(ev_dissolved(ev))
-        .map(|(b, d)| (b - d).max(0.0))
-        .collect();
-    let bound = ev.hydrate_water_kg(&undissolved);
+    let bound = ev.hydrate_water_since(before);
     let ice = (w_total - liquid - bound).max(0.0);
     Ok(IcePoint {
         temperature_c: t_c,
@@ -434,10 +443,6 @@ fn all_saturated_u(ev: &mut Evaluator<'_>, before: &[f64], t_k: f64) -> Option<f
         return Some(0.0);
     }
     Some((0.5 * w_sat / ev.water_kg).ln().min(0.0))
-}
-
-fn ev_dissolved(ev: &Evaluator<'_>) -> Vec<f64> {
-    ev.last_dissolved().to_vec()
 }
 
 /// Boiling point at `p_pa`, K: a_w p_sat(T) + p_cosolvent(T) = P.
@@ -869,11 +874,16 @@ enum BinaryKind {
 }
 
 fn best_kind(lib: &Library, solute: usize) -> BinaryKind {
-    match crate::models::binary::best_binary(lib, solute, 298.15) {
-        Binary::Pitzer(p) => BinaryKind::Pitzer(p.pair),
-        Binary::Norrish { .. } => BinaryKind::Norrish,
-        Binary::Wilson(_) => BinaryKind::Wilson,
-        Binary::Ideal { .. } => BinaryKind::Ideal,
+    // The same choice as `models::binary::best_binary`, read off the record.
+    let s = &lib.solutes[solute];
+    if s.volatile().is_some() {
+        BinaryKind::Wilson
+    } else if let Some(p) = s.pair {
+        BinaryKind::Pitzer(p)
+    } else if !s.is_electrolyte() && s.record.norrish.is_some() {
+        BinaryKind::Norrish
+    } else {
+        BinaryKind::Ideal
     }
 }
 
@@ -962,4 +972,33 @@ pub fn freezing_curve(
         points,
         warnings,
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::models::binary::{Binary, best_binary};
+
+    #[test]
+    fn validity_checks_use_the_binary_the_models_use() {
+        let lib = Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        for i in 0..lib.solutes.len() {
+            let same = matches!(
+                (best_kind(&lib, i), best_binary(&lib, i, 298.15)),
+                (BinaryKind::Pitzer(_), Binary::Pitzer(_))
+                    | (BinaryKind::Norrish, Binary::Norrish { .. })
+                    | (BinaryKind::Wilson, Binary::Wilson(_))
+                    | (BinaryKind::Ideal, Binary::Ideal { .. })
+            );
+            assert!(same, "{}", lib.solutes[i].id());
+        }
+    }
+
+    #[test]
+    fn ice_temperature_inverts_the_ice_curve() {
+        for y in [-0.01, -0.1, -0.3] {
+            let t = ice_temperature_for(y);
+            assert!((water::ice_equilibrium_ln_aw(t) - y).abs() < 1e-12, "{y}");
+        }
+    }
 }

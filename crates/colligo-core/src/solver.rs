@@ -33,6 +33,8 @@ pub struct Root {
     pub f: f64,
     /// Function evaluations used.
     pub evaluations: usize,
+    /// Slope of f near the root (secant of the last two points; NaN if unknown).
+    pub slope: f64,
 }
 
 /// Brent's method (Brent 1973, Algorithms for Minimization without
@@ -61,6 +63,7 @@ pub fn brent(
             x: a,
             f: 0.0,
             evaluations: 0,
+            slope: f64::NAN,
         });
     }
     if fb == 0.0 {
@@ -68,6 +71,7 @@ pub fn brent(
             x: b,
             f: 0.0,
             evaluations: 0,
+            slope: f64::NAN,
         });
     }
     if fa.signum() == fb.signum() {
@@ -105,6 +109,7 @@ pub fn brent(
                 x: b,
                 f: fb,
                 evaluations: evals,
+                slope: if c != b { (fc - fb) / (c - b) } else { f64::NAN },
             });
         }
         if e.abs() >= tol && fa.abs() > fb.abs() {
@@ -189,6 +194,7 @@ pub fn solve_warm(
                     x,
                     f: fx,
                     evaluations: evals,
+                    slope,
                 },
                 slope,
             ));
@@ -230,12 +236,14 @@ pub fn solve_warm(
             break;
         }
         if (next - x).abs() <= opts.x_tol {
-            let fn_ = eval(next, &mut evals);
+            // A step this small changes f by less than the tolerance
+            // allows to matter; f at `next` is its linear estimate.
             return Ok((
                 Root {
                     x: next,
-                    f: fn_,
+                    f: fx + slope * (next - x),
                     evaluations: evals,
+                    slope,
                 },
                 slope,
             ));
@@ -263,6 +271,7 @@ pub fn solve_warm(
                 x,
                 f: fx,
                 evaluations: evals,
+                slope,
             },
             slope,
         ));
@@ -300,9 +309,11 @@ pub fn solve_warm(
         if a < b { fb } else { fa },
         opts,
     )?;
+    let slope = if root.slope.is_finite() && root.slope != 0.0 { root.slope } else { slope };
     Ok((
         Root {
             evaluations: root.evaluations + evals,
+            slope,
             ..root
         },
         slope,

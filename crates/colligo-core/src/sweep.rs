@@ -47,6 +47,75 @@ pub fn linspace(from: f64, to: f64, n: usize) -> Vec<f64> {
         .collect()
 }
 
+/// The composition of `formula` with `id` at each amount. Without percent
+/// lines the composition is linear in the amount, so the rest of the
+/// formula is resolved once; with percent lines every point is resolved.
+fn compositions(
+    lib: &Library,
+    formula: &Formula,
+    id: &str,
+    ing: usize,
+    amounts_kg: &[f64],
+) -> Result<Vec<Composition>, FormulaError> {
+    let has_percent = formula.lines.iter().any(|l| l.unit == AmountUnit::Percent);
+    if has_percent {
+        return amounts_kg
+            .iter()
+            .map(|&kg| with_amount(formula, id, kg).composition(lib))
+            .collect();
+    }
+    let mut rest = formula.clone();
+    if let Some(i) = rest.lines.iter().position(|l| l.ingredient == id) {
+        rest.lines.remove(i);
+    }
+    let base = rest.composition(lib)?;
+    Ok(amounts_kg
+        .iter()
+        .map(|&kg| {
+            let mut c = base.clone();
+            c.add_ingredient(lib, ing, kg);
+            c
+        })
+        .collect())
+}
+
+/// Quick sweeps of several ingredients, spread over the machine's cores.
+///
+/// # Errors
+/// The first failing sweep's error.
+pub fn quick_sweeps(
+    lib: &Library,
+    formula: &Formula,
+    sweeps: &[(String, Vec<f64>)],
+    model: ModelId,
+    t_k: f64,
+    with_freezing: bool,
+) -> Result<Vec<QuickSweep>, SweepError> {
+    let workers = std::thread::available_parallelism().map_or(1, |n| n.get()).min(sweeps.len()).max(1);
+    if workers == 1 {
+        return sweeps
+            .iter()
+            .map(|(id, a)| quick_sweep(lib, formula, id, a, model, t_k, with_freezing))
+            .collect();
+    }
+    let mut out: Vec<Option<Result<QuickSweep, SweepError>>> = (0..sweeps.len()).map(|_| None).collect();
+    std::thread::scope(|scope| {
+        let chunks: Vec<_> = out.chunks_mut(sweeps.len().div_ceil(workers)).enumerate().collect();
+        let per = sweeps.len().div_ceil(workers);
+        for (k, chunk) in chunks {
+            scope.spawn(move || {
+                for (j, slot) in chunk.iter_mut().enumerate() {
+                    let (id, a) = &sweeps[k * per + j];
+                    *slot = Some(quick_sweep(lib, formula, id, a, model, t_k, with_freezing));
+                }
+            });
+        }
+    });
+    out.into_iter()
+        .map(|r| r.unwrap_or_else(|| Err(SweepError::Model(ModelError::Undefined { property: "sweep", reason: "not run".into() }))))
+        .collect()
+}
+
 /// a_w and freezing point along a sweep (the fast path behind the plots).
 #[derive(Debug, Clone, PartialEq)]
 pub struct QuickSweep {
@@ -70,11 +139,8 @@ fn prepare<'l>(
     amounts_kg: &[f64],
     model: ModelId,
 ) -> Result<(Vec<Composition>, Evaluator<'l>), SweepError> {
-    lib.ingredient_or_suggest(id).map_err(FormulaError::from)?;
-    let comps = amounts_kg
-        .iter()
-        .map(|&kg| with_amount(formula, id, kg).composition(lib))
-        .collect::<Result<Vec<_>, _>>()?;
+    let ing = lib.ingredient_or_suggest(id).map_err(FormulaError::from)?;
+    let comps = compositions(lib, formula, id, ing, amounts_kg)?;
     // The richest composition: every solute at its largest amount.
     let mut union = Composition::new();
     for c in &comps {

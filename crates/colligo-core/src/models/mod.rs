@@ -122,8 +122,8 @@ pub enum Role {
 }
 
 /// How dissolved amounts are capped by solubility.
-#[derive(Debug, Clone, PartialEq)]
-pub enum CapMode {
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum CapMode<'a> {
     /// Every solute is capped at its solubility at the current temperature
     /// in the current water.
     Equilibrium,
@@ -135,7 +135,7 @@ pub enum CapMode {
     /// glass-forming ones keep the amounts dissolved before freezing.
     Freezing {
         /// mol dissolved before freezing, per component.
-        before: Vec<f64>,
+        before: &'a [f64],
     },
 }
 
@@ -407,7 +407,7 @@ impl<'l> Evaluator<'l> {
     }
 
     /// Dissolved amounts (mol) at `t_k` in `water_kg` of liquid water.
-    pub fn dissolve(&mut self, t_k: f64, water_kg: f64, mode: &CapMode) -> &[f64] {
+    pub fn dissolve(&mut self, t_k: f64, water_kg: f64, mode: &CapMode<'_>) -> &[f64] {
         self.set_t(t_k);
         for (i, c) in self.comps.iter().enumerate() {
             let cap = self.solubility[i] * water_kg;
@@ -427,7 +427,7 @@ impl<'l> Evaluator<'l> {
     }
 
     /// ln a_w at `t_k` with `water_kg` of liquid water, amounts capped by `mode`.
-    pub fn ln_aw(&mut self, t_k: f64, water_kg: f64, mode: &CapMode) -> f64 {
+    pub fn ln_aw(&mut self, t_k: f64, water_kg: f64, mode: &CapMode<'_>) -> f64 {
         self.dissolve(t_k, water_kg, mode);
         let d = std::mem::take(&mut self.dissolved);
         let r = self.ln_aw_of(t_k, water_kg, &d);
@@ -617,6 +617,13 @@ impl<'l> Evaluator<'l> {
             for &(i, r, db) in &self.scratch {
                 self.zsr_m[i] += lam * (dy - r) / db;
             }
+            // Newton converges quadratically: from residuals this small a
+            // full step leaves an error of order their square (< 1e-16).
+            if lam == 1.0 && g.abs() < 1e-9 && worst_r < 1e-9 {
+                self.scratch.clear();
+                self.zsr_warm = Some(y);
+                return y;
+            }
             self.scratch.clear();
             if !y.is_finite() {
                 break;
@@ -726,6 +733,22 @@ impl<'l> Evaluator<'l> {
             return vec![0.0; parts.len()];
         }
         parts.iter().map(|p| p / sum * total).collect()
+    }
+
+    /// Water bound as crystal hydrate, kg, when `before` was available and
+    /// the last [`Evaluator::dissolve`] left `last_dissolved` in solution.
+    pub fn hydrate_water_since(&self, before: &[f64]) -> f64 {
+        self.comps
+            .iter()
+            .zip(before.iter().zip(&self.dissolved))
+            .map(|(c, (b, d))| {
+                let h = match self.lib.solutes[c.solute].record.solubility.as_ref().map(|s| &s.on_freezing) {
+                    Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
+                    _ => 0.0,
+                };
+                h * (b - d).max(0.0) * M_W
+            })
+            .sum()
     }
 
     /// Water to bind as crystal hydrate, kg, for amounts that did not dissolve.
