@@ -121,27 +121,36 @@ fn benches(c: &mut Criterion) {
             .zip(&r.line_kg)
             .take(8)
             .map(|(l, &kg)| {
-                let (lo, hi) = if l.ingredient == "water" { (0.5 * kg, 1.5 * kg) } else { (0.0, 2.0 * kg) };
+                let (lo, hi) = if l.ingredient == "water" {
+                    (0.5 * kg, 1.5 * kg)
+                } else {
+                    (0.0, 2.0 * kg)
+                };
                 (l.ingredient.clone(), linspace(lo, hi, 200))
             })
             .collect()
     };
     let r12 = ranges(&f12);
-    c.bench_function("8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, serial", |b| {
-        b.iter(|| {
-            for (id, a) in &r12 {
-                black_box(quick_sweep(&lib, &f12, id, a, ModelId::Auto, t, true).ok());
-            }
-        })
-    });
-    c.bench_function("8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, all cores", |b| {
-        b.iter(|| black_box(quick_sweeps(&lib, &f12, &r12, ModelId::Auto, t, true).ok()))
-    });
+    c.bench_function(
+        "8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, serial",
+        |b| {
+            b.iter(|| {
+                for (id, a) in &r12 {
+                    black_box(quick_sweep(&lib, &f12, id, a, ModelId::Auto, t, true).ok());
+                }
+            })
+        },
+    );
+    c.bench_function(
+        "8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, all cores",
+        |b| b.iter(|| black_box(quick_sweeps(&lib, &f12, &r12, ModelId::Auto, t, true).ok())),
+    );
     let spread = sample(&lib, "reduced_sugar_spread");
     let rs = ranges(&spread);
-    c.bench_function("sweeps of every ingredient (6) x 200 points, spread sample, all cores", |b| {
-        b.iter(|| black_box(quick_sweeps(&lib, &spread, &rs, ModelId::Auto, t, true).ok()))
-    });
+    c.bench_function(
+        "sweeps of every ingredient (6) x 200 points, spread sample, all cores",
+        |b| b.iter(|| black_box(quick_sweeps(&lib, &spread, &rs, ModelId::Auto, t, true).ok())),
+    );
 }
 
 criterion_group! {

@@ -359,7 +359,9 @@ pub fn ice_fraction(
     };
     let x0 = match (warm.ln_liquid, warm.prev, warm.prev2) {
         // Quadratic through the last three answers (Lagrange form).
-        (Some(u2), Some((t1, u1)), Some((t0, u0))) if warm.t_last != t1 && t1 != t0 && warm.t_last != t0 => {
+        (Some(u2), Some((t1, u1)), Some((t0, u0)))
+            if warm.t_last != t1 && t1 != t0 && warm.t_last != t0 =>
+        {
             let t2 = warm.t_last;
             let l0 = (t_k - t1) * (t_k - t2) / ((t0 - t1) * (t0 - t2));
             let l1 = (t_k - t0) * (t_k - t2) / ((t1 - t0) * (t1 - t2));
@@ -377,7 +379,11 @@ pub fn ice_fraction(
                 Some(tf) => water::ice_equilibrium_ln_aw(tf),
                 None => f_all_liquid + ln_ice,
             };
-            if y_all < 0.0 && ln_ice < 0.0 { (y_all / ln_ice).ln() } else { -0.7 }
+            if y_all < 0.0 && ln_ice < 0.0 {
+                (y_all / ln_ice).ln()
+            } else {
+                -0.7
+            }
         }
     }
     .clamp(u_floor, -1e-9);

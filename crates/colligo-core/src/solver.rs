@@ -86,8 +86,7 @@ pub fn brent(
     let mut fc = fa;
     let mut d = b - a;
     let mut e = d;
-    let mut evals = 0;
-    for _ in 0..opts.max_iter {
+    for evals in 0..opts.max_iter {
         if fb.signum() == fc.signum() {
             c = a;
             fc = fa;
@@ -109,7 +108,11 @@ pub fn brent(
                 x: b,
                 f: fb,
                 evaluations: evals,
-                slope: if c != b { (fc - fb) / (c - b) } else { f64::NAN },
+                slope: if c != b {
+                    (fc - fb) / (c - b)
+                } else {
+                    f64::NAN
+                },
             });
         }
         if e.abs() >= tol && fa.abs() > fb.abs() {
@@ -144,7 +147,6 @@ pub fn brent(
         fa = fb;
         b += if d.abs() > tol { d } else { tol.copysign(m) };
         fb = f(b);
-        evals += 1;
         if !fb.is_finite() {
             return Err(SolverError::NonFinite { x: b });
         }
@@ -302,14 +304,18 @@ pub fn solve_warm(
         }
     };
     let root = brent(
-        |x| f(x),
+        &mut f,
         a.min(b),
         a.max(b),
         if a < b { fa } else { fb },
         if a < b { fb } else { fa },
         opts,
     )?;
-    let slope = if root.slope.is_finite() && root.slope != 0.0 { root.slope } else { slope };
+    let slope = if root.slope.is_finite() && root.slope != 0.0 {
+        root.slope
+    } else {
+        slope
+    };
     Ok((
         Root {
             evaluations: root.evaluations + evals,

@@ -91,16 +91,23 @@ pub fn quick_sweeps(
     t_k: f64,
     with_freezing: bool,
 ) -> Result<Vec<QuickSweep>, SweepError> {
-    let workers = std::thread::available_parallelism().map_or(1, |n| n.get()).min(sweeps.len()).max(1);
+    let workers = std::thread::available_parallelism()
+        .map_or(1, |n| n.get())
+        .min(sweeps.len())
+        .max(1);
     if workers == 1 {
         return sweeps
             .iter()
             .map(|(id, a)| quick_sweep(lib, formula, id, a, model, t_k, with_freezing))
             .collect();
     }
-    let mut out: Vec<Option<Result<QuickSweep, SweepError>>> = (0..sweeps.len()).map(|_| None).collect();
+    let mut out: Vec<Option<Result<QuickSweep, SweepError>>> =
+        (0..sweeps.len()).map(|_| None).collect();
     std::thread::scope(|scope| {
-        let chunks: Vec<_> = out.chunks_mut(sweeps.len().div_ceil(workers)).enumerate().collect();
+        let chunks: Vec<_> = out
+            .chunks_mut(sweeps.len().div_ceil(workers))
+            .enumerate()
+            .collect();
         let per = sweeps.len().div_ceil(workers);
         for (k, chunk) in chunks {
             scope.spawn(move || {
@@ -112,7 +119,14 @@ pub fn quick_sweeps(
         }
     });
     out.into_iter()
-        .map(|r| r.unwrap_or_else(|| Err(SweepError::Model(ModelError::Undefined { property: "sweep", reason: "not run".into() }))))
+        .map(|r| {
+            r.unwrap_or_else(|| {
+                Err(SweepError::Model(ModelError::Undefined {
+                    property: "sweep",
+                    reason: "not run".into(),
+                }))
+            })
+        })
         .collect()
 }
 

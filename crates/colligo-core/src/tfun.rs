@@ -213,7 +213,7 @@ impl Table {
             return Err("empty table".into());
         }
         for w in self.0.windows(2) {
-            if !(w[1].0 > w[0].0) {
+            if w[1].0.partial_cmp(&w[0].0) != Some(std::cmp::Ordering::Greater) {
                 return Err(format!("x values not increasing at {}", w[1].0));
             }
         }

@@ -13,7 +13,7 @@ use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::water::{self, M_W, R, T_ZERO_C};
 use colligo_core::{Library, ModelError};
 
-use crate::cli::{csv_field, fmt_num, split_csv};
+use crate::cli::{csv_field, push_num, split_csv};
 use crate::report;
 
 /// Keys that follow from ln a_w alone (no freezing or boiling solve).
@@ -81,7 +81,13 @@ pub fn run_batch(
         out.push_str(k);
     }
     out.push_str(",error\n");
-    let mut cache: HashMap<(ModelId, Vec<usize>), Evaluator<'_>> = HashMap::new();
+    // One evaluator per (model, solute set); rows usually repeat the set of
+    // their predecessor, which is checked without hashing.
+    let mut evaluators: Vec<Evaluator<'_>> = Vec::new();
+    let mut index: HashMap<(ModelId, Vec<usize>), usize> = HashMap::new();
+    let mut last: Option<(ModelId, usize)> = None;
+    let mut last_set: Vec<usize> = Vec::new();
+    let mut set: Vec<usize> = Vec::new();
     let mut comp = Composition::new();
     let mut values: Vec<Option<f64>> = vec![None; keys.len()];
     for (lineno, line) in lines {
@@ -123,15 +129,26 @@ pub fn run_batch(
                 } else {
                     model
                 };
-                let set: Vec<usize> = comp
-                    .solutes
-                    .iter()
-                    .filter(|s| s.mol > 0.0)
-                    .map(|s| s.solute)
-                    .collect();
-                let ev = cache
-                    .entry((resolved, set))
-                    .or_insert_with_key(|(m, s)| Evaluator::with_solutes(lib, s, *m));
+                set.clear();
+                set.extend(
+                    comp.solutes
+                        .iter()
+                        .filter(|s| s.mol > 0.0)
+                        .map(|s| s.solute),
+                );
+                let slot = match last {
+                    Some((m, i)) if m == resolved && set == last_set => i,
+                    _ => {
+                        let i = *index.entry((resolved, set.clone())).or_insert_with(|| {
+                            evaluators.push(Evaluator::with_solutes(lib, &set, resolved));
+                            evaluators.len() - 1
+                        });
+                        last = Some((resolved, i));
+                        last_set.clone_from(&set);
+                        i
+                    }
+                };
+                let ev = &mut evaluators[slot];
                 ev.set_composition(&comp);
                 let ln_aw = ev.ln_aw(t, comp.water_kg, &CapMode::Equilibrium);
                 let aw = ln_aw.exp();
@@ -174,7 +191,7 @@ pub fn run_batch(
                 for v in &values {
                     out.push(',');
                     if let Some(x) = v {
-                        out.push_str(&fmt_num(*x));
+                        push_num(&mut out, *x);
                     }
                 }
                 out.push_str(",\n");

@@ -408,18 +408,40 @@ fn sweep_cmd(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Resul
     Ok(())
 }
 
-/// Shortest text that reads back to the same f64 (up to 10 significant digits).
+/// `v` with 10 significant digits, as [`push_num`] writes it.
 pub fn fmt_num(v: f64) -> String {
+    let mut s = String::new();
+    push_num(&mut s, v);
+    s
+}
+
+/// Appends `v` with 10 significant digits and no trailing zeros (fixed
+/// notation for ordinary magnitudes), without allocating.
+pub fn push_num(out: &mut String, v: f64) {
     if !v.is_finite() {
-        return String::new();
+        return;
     }
-    let s = format!("{v:.10e}");
-    let parsed: f64 = s.parse().unwrap_or(v);
-    let plain = format!("{parsed}");
-    if plain.len() <= 16 {
-        plain
+    let a = v.abs();
+    if a != 0.0 && !(1e-4..1e9).contains(&a) {
+        let _ = write!(out, "{v:.9e}");
+        return;
+    }
+    let decimals = if a == 0.0 {
+        0
+    } else if a < 1.0 {
+        10 + (-a.log10()).floor() as usize
     } else {
-        format!("{v:.8}")
+        10usize.saturating_sub(a.log10().floor() as usize + 1)
+    };
+    let start = out.len();
+    let _ = write!(out, "{v:.decimals$}");
+    if out[start..].contains('.') {
+        while out.ends_with('0') {
+            out.pop();
+        }
+        if out.ends_with('.') {
+            out.pop();
+        }
     }
 }
 
@@ -503,4 +525,30 @@ fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()
     w.write_all(rows.as_bytes())?;
     w.flush()?;
     Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_print_with_ten_significant_digits() {
+        assert_eq!(fmt_num(0.945_771_276_584_321), "0.9457712766");
+        assert_eq!(fmt_num(101.0), "101");
+        assert_eq!(fmt_num(-18.25), "-18.25");
+        assert_eq!(fmt_num(0.000_123_456_789_012), "0.000123456789");
+        assert_eq!(fmt_num(0.0), "0");
+        assert_eq!(fmt_num(3_169.824_486_313_972), "3169.824486");
+        assert_eq!(fmt_num(f64::NAN), "");
+        assert_eq!(fmt_num(1.5e-7), "1.500000000e-7");
+    }
+
+    #[test]
+    fn csv_splits_quoted_fields() {
+        assert_eq!(
+            split_csv(r#"a,"b, c","d ""q""""#),
+            vec!["a", "b, c", r#"d "q""#]
+        );
+        assert_eq!(csv_field("x,y"), "\"x,y\"");
+    }
 }

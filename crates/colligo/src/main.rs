@@ -23,6 +23,15 @@ fn main() -> ExitCode {
         let mut lock = stdout.lock();
         return match cli::run(sub, &args[1..], &mut lock) {
             Ok(()) => ExitCode::SUCCESS,
+            // A reader that stops early (`| head`) is not an error.
+            Err(e)
+                if e.chain().any(|c| {
+                    c.downcast_ref::<std::io::Error>()
+                        .is_some_and(|io| io.kind() == std::io::ErrorKind::BrokenPipe)
+                }) =>
+            {
+                ExitCode::SUCCESS
+            }
             Err(e) => {
                 eprintln!("colligo {sub}: {e:#}");
                 ExitCode::from(1)

@@ -136,7 +136,7 @@ pub enum SoluteKind {
         ions: Vec<IonCount>,
     },
     /// A volatile co-solvent with its own vapour pressure (ethanol).
-    Volatile(VolatileRecord),
+    Volatile(Box<VolatileRecord>),
 }
 
 /// An ion and how many of it one formula unit releases.

@@ -696,7 +696,7 @@ impl<'l> Evaluator<'l> {
                 return y;
             }
             let mut next = y - g / dg;
-            if !(next > lo && next < hi) || !next.is_finite() {
+            if !(next > lo && next < hi && next.is_finite()) {
                 next = if lo.is_finite() {
                     0.5 * (lo + hi)
                 } else {
@@ -742,7 +742,12 @@ impl<'l> Evaluator<'l> {
             .iter()
             .zip(before.iter().zip(&self.dissolved))
             .map(|(c, (b, d))| {
-                let h = match self.lib.solutes[c.solute].record.solubility.as_ref().map(|s| &s.on_freezing) {
+                let h = match self.lib.solutes[c.solute]
+                    .record
+                    .solubility
+                    .as_ref()
+                    .map(|s| &s.on_freezing)
+                {
                     Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
                     _ => 0.0,
                 };
