@@ -164,6 +164,14 @@ fn split_number(text: &str) -> Option<(f64, &str)> {
 /// [`FormulaError::BadAmount`] for text that is not a finite, non-negative
 /// number with a known unit.
 pub fn parse_amount(text: &str) -> Result<Amount, FormulaError> {
+    parse_amount_or(text, AmountUnit::G)
+}
+
+/// Reads an amount; a bare number takes `default` as its unit.
+///
+/// # Errors
+/// As [`parse_amount`].
+pub fn parse_amount_or(text: &str, default: AmountUnit) -> Result<Amount, FormulaError> {
     let bad = |reason: &str| FormulaError::BadAmount {
         text: text.to_string(),
         reason: reason.to_string(),
@@ -172,8 +180,11 @@ pub fn parse_amount(text: &str) -> Result<Amount, FormulaError> {
         return Err(bad("empty"));
     }
     let (value, rest) = split_number(text).ok_or_else(|| bad("not a number"))?;
-    let unit =
-        AmountUnit::parse(rest).ok_or_else(|| bad("unknown unit (use g, kg, mg, oz, lb or %)"))?;
+    let unit = if rest.trim().is_empty() {
+        default
+    } else {
+        AmountUnit::parse(rest).ok_or_else(|| bad("unknown unit (use g, kg, mg, oz, lb or %)"))?
+    };
     if !value.is_finite() {
         return Err(bad("not a finite number"));
     }

@@ -2,12 +2,9 @@
 //! and vapour pressure of aqueous formulations, with headless subcommands
 //! on the same binary.
 
-mod batch;
-mod cli;
-mod report;
-mod solve_cli;
-
 use std::process::ExitCode;
+
+use colligo::{app, cli};
 
 fn main() -> ExitCode {
     let args: Vec<String> = std::env::args().skip(1).collect();
@@ -38,6 +35,15 @@ fn main() -> ExitCode {
             }
         };
     }
-    eprintln!("the window is not built yet");
-    ExitCode::from(2)
+    if args.len() > 1 || args.first().is_some_and(|a| a.starts_with('-')) {
+        eprintln!("colligo: unexpected arguments {args:?}\n\n{}", cli::USAGE);
+        return ExitCode::from(2);
+    }
+    match app::run(args.first().map(std::path::PathBuf::from)) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("colligo: cannot open the window: {e}");
+            ExitCode::from(1)
+        }
+    }
 }

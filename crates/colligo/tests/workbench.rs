@@ -1,0 +1,414 @@
+//! The workbench driven as a person would: find widgets by label and role,
+//! click, type, press keys, and check what the document and the results
+//! say. No display or GPU is needed.
+
+use std::path::PathBuf;
+
+use colligo::app::commands::Command;
+use colligo::app::{Modal, Startup, WorkbenchApp};
+use colligo_core::models::ModelId;
+use colligo_core::quantity::TemperatureUnit;
+use egui::accesskit::Role;
+use egui::{Key, Modifiers};
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+
+/// A fresh data directory per test (recovery files live there).
+fn data_dir(name: &str) -> PathBuf {
+    let d = std::env::temp_dir().join(format!("colligo-ui-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&d);
+    std::fs::create_dir_all(&d).unwrap_or_else(|e| panic!("{e}"));
+    d
+}
+
+fn harness(name: &str) -> Harness<'static, WorkbenchApp> {
+    harness_in(data_dir(name))
+}
+
+fn harness_in(dir: PathBuf) -> Harness<'static, WorkbenchApp> {
+    let app = WorkbenchApp::new(Startup {
+        open: None,
+        data_dir: Some(dir),
+        prefs: Default::default(),
+    });
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        // The chart worker repaints when its result lands, which can take
+        // a few extra frames to settle.
+        .with_max_steps(64)
+        .build_ui_state(|ui, app: &mut WorkbenchApp| app.ui_root(ui), app);
+    h.run();
+    h
+}
+
+fn aw(h: &Harness<'_, WorkbenchApp>) -> f64 {
+    h.state()
+        .eval
+        .as_ref()
+        .and_then(|e| e.props.as_ref().ok())
+        .map_or(f64::NAN, |p| p.water_activity)
+}
+
+/// Replaces the text of the field labelled `label` as a user would:
+/// click in it, select all, type, press Enter.
+fn retype(h: &mut Harness<'_, WorkbenchApp>, label: &str, text: &str) {
+    h.get_by_role_and_label(Role::TextInput, label).click();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    h.run();
+    h.get_by_role_and_label(Role::TextInput, label)
+        .type_text(text);
+    h.run();
+    h.key_press(Key::Enter);
+    h.run();
+}
+
+fn line_amount(h: &Harness<'_, WorkbenchApp>, id: &str) -> Option<f64> {
+    h.state()
+        .doc
+        .formula()
+        .lines
+        .iter()
+        .find(|l| l.ingredient == id)
+        .map(|l| l.amount)
+}
+
+#[test]
+fn opens_on_a_sample_with_results() {
+    let h = harness("opens");
+    let app = h.state();
+    assert!(!app.doc.formula().lines.is_empty());
+    assert!(aw(&h) > 0.5 && aw(&h) < 1.0);
+    assert!(h.query_by_label_contains("Water profile").is_some());
+    assert!(
+        h.query_by_label_contains("calibrated water-activity measurement")
+            .is_some(),
+        "cautions shown"
+    );
+}
+
+#[test]
+fn add_an_ingredient_through_the_picker() {
+    let mut h = harness("picker");
+    let before = h.state().doc.formula().lines.len();
+    h.get_by_role_and_label(Role::TextInput, "Add ingredient")
+        .click();
+    h.run();
+    // A synonym finds it too: "E422" is glycerol.
+    h.get_by_role_and_label(Role::TextInput, "Add ingredient")
+        .type_text("E422");
+    h.run();
+    h.get_by_label_contains("Glycerol").click();
+    h.run();
+    let f = h.state().doc.formula();
+    assert_eq!(f.lines.len(), before + 1);
+    assert_eq!(
+        f.lines.last().map(|l| l.ingredient.as_str()),
+        Some("glycerol")
+    );
+}
+
+#[test]
+fn changing_an_amount_changes_aw() {
+    let mut h = harness("amount");
+    let aw0 = aw(&h);
+    retype(&mut h, "Sucrose", "500");
+    assert_eq!(line_amount(&h, "sucrose"), Some(500.0));
+    assert!(
+        aw(&h) < aw0 - 1e-4,
+        "more sucrose must lower a_w: {aw0} → {}",
+        aw(&h)
+    );
+}
+
+#[test]
+fn garbage_in_an_amount_is_refused() {
+    let mut h = harness("garbage");
+    let before = h.state().doc.project.clone();
+    h.get_by_role_and_label(Role::TextInput, "Sucrose").click();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    h.get_by_role_and_label(Role::TextInput, "Sucrose")
+        .type_text("lots");
+    h.run();
+    assert_eq!(
+        h.state().doc.project,
+        before,
+        "the document must not change"
+    );
+    // A negative mass is refused too.
+    h.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    h.get_by_role_and_label(Role::TextInput, "Sucrose")
+        .type_text("-5");
+    h.run();
+    assert_eq!(h.state().doc.project, before);
+    assert!(aw(&h).is_finite());
+}
+
+#[test]
+fn switching_the_model() {
+    let mut h = harness("model");
+    let aw0 = aw(&h);
+    h.get_by_role_and_label(Role::ComboBox, "Model").click();
+    h.run();
+    h.get_by_label("Ideal (Raoult, with dissociation)").click();
+    h.run();
+    assert_eq!(h.state().doc.project.model, ModelId::Ideal);
+    assert!(
+        (aw(&h) - aw0).abs() > 1e-3,
+        "the ideal model gives another a_w"
+    );
+}
+
+#[test]
+fn switching_temperature_units() {
+    let mut h = harness("units");
+    h.get_by_label("Temperature unit").click();
+    h.run();
+    h.get_by_label("°F").click();
+    h.run();
+    assert_eq!(
+        h.state().doc.project.units.temperature,
+        TemperatureUnit::Fahrenheit
+    );
+    // 25 °C shows as 77 °F.
+    let field = h.get_by_role_and_label(Role::TextInput, "Product temperature");
+    assert_eq!(field.value().as_deref(), Some("77 °F"));
+}
+
+#[test]
+fn changing_temperature_changes_vapour_pressure() {
+    let mut h = harness("temperature");
+    let p0 = h
+        .state()
+        .eval
+        .as_ref()
+        .and_then(|e| e.props.as_ref().ok())
+        .map(|p| p.vapor_pressure_pa);
+    retype(&mut h, "Product temperature", "40 C");
+    let p1 = h
+        .state()
+        .eval
+        .as_ref()
+        .and_then(|e| e.props.as_ref().ok())
+        .map(|p| p.vapor_pressure_pa);
+    assert!((h.state().doc.project.conditions.temperature_c - 40.0).abs() < 1e-9);
+    assert!(
+        p1.unwrap_or(0.0) > 1.5 * p0.unwrap_or(f64::INFINITY),
+        "{p0:?} → {p1:?}"
+    );
+}
+
+#[test]
+fn picking_the_sweep_ingredient() {
+    let mut h = harness("sweep");
+    h.get_by_role_and_label(Role::ComboBox, "Ingredient")
+        .click();
+    h.run();
+    // The entry in the open list (the table has a label of that name too).
+    h.get_by_role_and_label(Role::Button, "Glycerin 99.5 %")
+        .click();
+    h.run();
+    assert_eq!(
+        h.state().charts_panel.sweep_ingredient.as_deref(),
+        Some("glycerin_995")
+    );
+    // The chart worker delivers a sweep of that ingredient.
+    for _ in 0..200 {
+        h.step();
+        std::thread::sleep(std::time::Duration::from_millis(5));
+        if let Some(colligo::app::compute::ChartData::Sweep { ingredient, .. }) =
+            h.state().charts.current()
+        {
+            assert_eq!(ingredient, "glycerin_995");
+            return;
+        }
+    }
+    panic!("no sweep data arrived");
+}
+
+#[test]
+fn undo_and_redo() {
+    let mut h = harness("undo");
+    let before = line_amount(&h, "sucrose");
+    retype(&mut h, "Sucrose", "123");
+    assert_eq!(line_amount(&h, "sucrose"), Some(123.0));
+    // Leave the field so the shortcut reaches the document.
+    h.key_press(Key::Escape);
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert_eq!(line_amount(&h, "sucrose"), before);
+    h.key_press_modifiers(Modifiers::COMMAND | Modifiers::SHIFT, Key::Z);
+    h.run();
+    assert_eq!(line_amount(&h, "sucrose"), Some(123.0));
+}
+
+#[test]
+fn save_and_reopen_gives_the_same_document() {
+    let dir = data_dir("save");
+    let mut h = harness_in(dir.clone());
+    retype(&mut h, "Sucrose", "333");
+    let path = dir.join("spread.ron");
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Command::SaveTo(path.clone()));
+    h.run();
+    assert!(!h.state().doc.is_dirty());
+    let saved = h.state().doc.project.clone();
+    // Open something else, then the saved file again.
+    h.state_mut().apply(&ctx, Command::OpenSample(1));
+    h.run();
+    assert_ne!(h.state().doc.project, saved);
+    h.state_mut().apply(&ctx, Command::OpenPath(path.clone()));
+    h.run();
+    assert_eq!(h.state().doc.project, saved);
+    assert_eq!(h.state().doc.path.as_deref(), Some(path.as_path()));
+    assert_eq!(h.state().prefs.recent.first(), Some(&path));
+}
+
+#[test]
+fn a_corrupt_file_shows_an_error_and_keeps_the_project() {
+    let dir = data_dir("corrupt");
+    let mut h = harness_in(dir.clone());
+    let bad = dir.join("broken.ron");
+    std::fs::write(
+        &bad,
+        "(format_version: 1, name: \"half a file\", variants: [",
+    )
+    .unwrap_or_else(|e| panic!("{e}"));
+    let before = h.state().doc.project.clone();
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Command::OpenPath(bad));
+    h.run();
+    assert_eq!(h.state().doc.project, before);
+    let status = h
+        .state()
+        .status
+        .clone()
+        .unwrap_or_else(|| panic!("no message"));
+    assert!(
+        status.error && status.text.contains("broken.ron"),
+        "{}",
+        status.text
+    );
+    assert!(
+        h.query_by_label_contains("broken.ron").is_some(),
+        "the message is on screen"
+    );
+}
+
+#[test]
+fn unsaved_changes_prompt_before_new() {
+    let mut h = harness("prompt");
+    retype(&mut h, "Sucrose", "111");
+    h.key_press(Key::Escape);
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::N);
+    h.run();
+    assert!(matches!(h.state().modal, Some(Modal::Unsaved { .. })));
+    assert!(h.query_by_label("Unsaved changes").is_some());
+    // Cancel keeps the work.
+    h.get_by_label("Cancel").click();
+    h.run();
+    assert!(h.state().modal.is_none());
+    assert_eq!(line_amount(&h, "sucrose"), Some(111.0));
+    // Discarding runs the New.
+    h.key_press_modifiers(Modifiers::COMMAND, Key::N);
+    h.run();
+    h.get_by_label("Discard changes").click();
+    h.run();
+    assert_eq!(h.state().doc.project.name, "Untitled");
+}
+
+#[test]
+fn closing_the_window_with_unsaved_changes_asks_first() {
+    let mut h = harness("close");
+    retype(&mut h, "Sucrose", "222");
+    h.key_press(Key::Escape);
+    h.run();
+    h.input_mut()
+        .viewports
+        .entry(egui::ViewportId::ROOT)
+        .or_default()
+        .events
+        .push(egui::ViewportEvent::Close);
+    h.run();
+    assert!(
+        matches!(h.state().modal, Some(Modal::Unsaved { .. })),
+        "close must be held back"
+    );
+}
+
+#[test]
+fn recovery_is_offered_after_a_crash() {
+    let dir = data_dir("recover");
+    let edited = {
+        let mut h = harness_in(dir.clone());
+        retype(&mut h, "Sucrose", "444");
+        h.state_mut().autosave_now();
+        h.state().doc.project.clone()
+        // The harness is dropped without a clean exit: a crash.
+    };
+    let mut h = harness_in(dir);
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(h.state().doc.project.variants, edited.variants);
+    assert!(
+        h.state().doc.is_dirty(),
+        "recovered work is unsaved until saved"
+    );
+}
+
+#[test]
+fn undo_shortcut_stays_with_a_focused_text_field() {
+    let mut h = harness("focus");
+    retype(&mut h, "Sucrose", "150");
+    // Still focused in the field: Ctrl+Z belongs to the field, not the document.
+    h.get_by_role_and_label(Role::TextInput, "Sucrose").click();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert_eq!(line_amount(&h, "sucrose"), Some(150.0));
+}
+
+#[test]
+fn line_tools_remove_duplicate_reorder_and_scale() {
+    let mut h = harness("lines");
+    let n = h.state().doc.formula().lines.len();
+    h.get_by_label("Duplicate the Sucrose line").click();
+    h.run();
+    assert_eq!(h.state().doc.formula().lines.len(), n + 1);
+    let first = h.state().doc.formula().lines[0].ingredient.clone();
+    let second = h.state().doc.formula().lines[1].ingredient.clone();
+    let first_name = h.state().doc.lib.ingredients
+        [h.state().doc.lib.ingredient(&first).unwrap_or(0)]
+    .name()
+    .to_string();
+    h.get_by_label(&format!("Move {first_name} down")).click();
+    h.run();
+    assert_eq!(h.state().doc.formula().lines[0].ingredient, second);
+    assert_eq!(h.state().doc.formula().lines[1].ingredient, first);
+    h.get_by_label(&format!("Remove {first_name}")).click();
+    h.run();
+    assert_eq!(h.state().doc.formula().lines.len(), n);
+    retype(&mut h, "Scale batch to", "2 kg");
+    h.get_by_label("Scale").click();
+    h.run();
+    let total: f64 = h
+        .state()
+        .eval
+        .as_ref()
+        .and_then(|e| e.resolved.as_ref().ok())
+        .map_or(0.0, |r| r.line_kg.iter().sum());
+    assert!((total - 2.0).abs() < 1e-9, "{total}");
+}
+
+#[test]
+fn every_built_in_sample_opens() {
+    let lib = colligo_core::Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+    for i in 0..colligo::app::files::SAMPLES.len() {
+        let p = colligo::app::files::sample(&lib, i).unwrap_or_else(|e| panic!("sample {i}: {e}"));
+        assert!(p.variants.len() >= 2, "{}", p.name);
+    }
+}
