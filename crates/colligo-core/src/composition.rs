@@ -19,7 +19,7 @@ pub struct SoluteAmount {
 pub struct Composition {
     /// Water, kg (free water of all ingredients).
     pub water_kg: f64,
-    /// Solutes, one entry per library solute, in library order.
+    /// Solutes present, one entry per library solute, in library order.
     pub solutes: Vec<SoluteAmount>,
     /// Insoluble solids (fat, protein, starch, fibre…), kg.
     pub insoluble_kg: f64,

@@ -17,6 +17,7 @@ pub mod quantity;
 pub mod solver;
 pub mod sweep;
 pub mod tfun;
+pub mod userlib;
 pub mod warnings;
 pub mod water;
 

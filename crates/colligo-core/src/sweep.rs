@@ -195,7 +195,9 @@ pub fn quick_sweep(
         ev.set_composition(c);
         if c.water_kg <= 0.0 {
             aw.push(f64::NAN);
-            fp.push(f64::NAN);
+            if with_freezing {
+                fp.push(f64::NAN);
+            }
             continue;
         }
         let ln_aw = ev.ln_aw(t_k, c.water_kg, &CapMode::Equilibrium);

@@ -177,7 +177,7 @@ fn murphy_koop_dln_p_liquid_dt(t: f64) -> f64 {
 /// Water activity of an aqueous solution in equilibrium with ice Ih at `t_k`:
 /// the ratio p_ice(T)/p_liquid(T) of the vapour pressures of ice and of
 /// supercooled liquid water, both from Murphy & Koop (2005), eqs. 7 and 10.
-/// Returns 1 at and above 273.15 K (no ice can form there at 0.1 MPa).
+/// Returns 0 (a_w = 1) at and above 273.15 K (no ice can form there at 0.1 MPa).
 ///
 /// The ratio agrees with the Gibbs-energy route (IAPWS-06 ice, IAPWS-95
 /// liquid) within 3.1e-4 to −20 °C (see the reference checks).

@@ -51,7 +51,7 @@ pub struct Args {
     switches: Vec<String>,
 }
 
-const SWITCHES: [&str; 4] = ["json", "csv", "help", "quiet"];
+const SWITCHES: [&str; 3] = ["json", "csv", "help"];
 
 impl Args {
     /// Parses everything after the subcommand.
@@ -116,8 +116,8 @@ impl Args {
     }
 }
 
-/// Runs a subcommand; returns the process exit code. Errors are printed
-/// to stderr by the caller.
+/// Runs a subcommand, writing its output to `out`. Errors are printed to
+/// stderr by the caller, which exits non-zero.
 ///
 /// # Errors
 /// Any failure, with context.

@@ -1,5 +1,5 @@
-//! Turning results into JSON objects and readable tables (shared by the
-//! command line and the app's export).
+//! Turning results into JSON objects and readable tables for the command
+//! line (the app shares the cautions text).
 
 use colligo_core::Properties;
 use colligo_core::properties::FreezingCurve;
@@ -226,5 +226,6 @@ pub fn freezing_table(c: &FreezingCurve) -> String {
     for w in &c.warnings {
         out.push_str(&format!("  - {w}\n"));
     }
+    out.push_str(&format!("\n  {CAUTIONS}\n"));
     out
 }

@@ -9,6 +9,7 @@ use std::collections::HashMap;
 pub use records::*;
 
 use crate::error::LibraryError;
+use crate::tfun::TempFn;
 use crate::water::M_W;
 
 /// Index of a solute in [`Library::solutes`].
@@ -183,7 +184,7 @@ pub struct Library {
     pub ions: Vec<Ion>,
     /// Pitzer parameters.
     pub pitzer: PitzerData,
-    /// Ingredients (composite, then one per pure solute, then water).
+    /// Ingredients: composite ones, then water, then one per pure solute.
     pub ingredients: Vec<Ingredient>,
     /// Guidance lines.
     pub thresholds: Vec<ThresholdRecord>,
@@ -318,7 +319,11 @@ impl Library {
         for p in file.pairs {
             let owner = format!("{}/{}", p.cation, p.anion);
             self.check_cite(&p.source, &owner)?;
-            for f in [&p.beta0, &p.beta1, &p.beta2] {
+            let third: Vec<&TempFn> = match &p.c {
+                ThirdVirial::CPhi(f) => vec![f],
+                ThirdVirial::C0C1 { c0, c1, .. } => vec![c0, c1],
+            };
+            for f in [&p.beta0, &p.beta1, &p.beta2].into_iter().chain(third) {
                 f.check().map_err(|message| LibraryError::Invalid {
                     id: owner.clone(),
                     message,
@@ -352,8 +357,22 @@ impl Library {
                     message: "θ needs two different ions of like sign".into(),
                 });
             }
+            t.theta.check().map_err(|message| LibraryError::Invalid {
+                id: owner.clone(),
+                message,
+            })?;
             let key = (i.min(j), i.max(j));
-            self.pitzer.theta.insert(key, self.pitzer.thetas.len());
+            if self
+                .pitzer
+                .theta
+                .insert(key, self.pitzer.thetas.len())
+                .is_some()
+            {
+                return Err(LibraryError::Duplicate {
+                    what: "θ",
+                    id: owner,
+                });
+            }
             self.pitzer.thetas.push(t);
         }
         for p in file.psis {
@@ -370,15 +389,30 @@ impl Library {
                     message: "ψ needs two like-sign ions, then one of opposite sign".into(),
                 });
             }
+            p.psi.check().map_err(|message| LibraryError::Invalid {
+                id: owner.clone(),
+                message,
+            })?;
             let key = (i.min(j), i.max(j), k);
-            self.pitzer.psi.insert(key, self.pitzer.psis.len());
+            if self
+                .pitzer
+                .psi
+                .insert(key, self.pitzer.psis.len())
+                .is_some()
+            {
+                return Err(LibraryError::Duplicate {
+                    what: "ψ",
+                    id: owner,
+                });
+            }
             self.pitzer.psis.push(p);
         }
         Ok(())
     }
 
-    /// Adds a solute (built-in or user-defined) and its pure-solute
-    /// ingredient when the library is already built.
+    /// Adds a solute (built-in or user-defined). Its pure-solute ingredient
+    /// comes with [`Library::add_user_solute`] or, for built-in solutes,
+    /// when the whole library is built.
     ///
     /// # Errors
     /// Duplicate id, bad molar mass, unknown ions or sources.
@@ -445,11 +479,17 @@ impl Library {
                     message: format!("solubility: {message}"),
                 })?;
         }
-        if let SoluteKind::Volatile(v) = &rec.kind
-            && !user
-        {
-            self.check_cite(&v.wilson.source, &rec.id)?;
-            self.check_cite(&v.antoine.source, &rec.id)?;
+        if let SoluteKind::Volatile(v) = &rec.kind {
+            for f in [&v.wilson.a12_j_per_mol, &v.wilson.a21_j_per_mol] {
+                f.check().map_err(|message| LibraryError::Invalid {
+                    id: rec.id.clone(),
+                    message,
+                })?;
+            }
+            if !user {
+                self.check_cite(&v.wilson.source, &rec.id)?;
+                self.check_cite(&v.antoine.source, &rec.id)?;
+            }
         }
         let nu = if ions.is_empty() {
             1.0

@@ -1,6 +1,6 @@
 //! The serde records of the built-in library files in `assets/`.
 //!
-//! Every parameter block carries a [`Cite`]: a key into `assets/sources.ron`,
+//! Every parameter block carries a [`Cite`]: a key into the bibliography `assets/sources/*.ron`,
 //! where it was read (table, equation), and how sure we are of it.
 
 use serde::{Deserialize, Serialize};
@@ -21,13 +21,15 @@ pub enum Confidence {
     /// Derived by a stated calculation from other sourced values
     /// (e.g. a molar mass from IUPAC atomic weights).
     Derived,
+    /// Entered by the user (their own data or supplier's specification).
+    User,
 }
 
 /// A citation: a key into the bibliography, where in it, and confidence.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct Cite {
-    /// Key into `assets/sources.ron`.
+    /// Key into the bibliography (`assets/sources/*.ron`).
     pub key: String,
     /// Where in the source: table, equation, page.
     #[serde(default)]
@@ -259,7 +261,7 @@ pub struct AntoineRecord {
     pub source: Cite,
 }
 
-/// The solute file `assets/solutes.ron`.
+/// A solute file (`assets/solutes/*.ron`).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct SoluteFile {
@@ -542,7 +544,7 @@ pub struct ThresholdFile {
     pub thresholds: Vec<ThresholdRecord>,
 }
 
-/// The bibliography `assets/sources.ron`.
+/// A bibliography file (`assets/sources/*.ron`).
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct SourceFile {

@@ -241,9 +241,9 @@ fn dh(aphi: f64, i: f64, s: f64) -> f64 {
 pub struct PitzerBinary {
     /// Pair record index.
     pub pair: usize,
-    /// Cation charge and count.
+    /// Cation charge.
     pub zc: f64,
-    /// Anion charge (negative) and count.
+    /// Anion charge (negative).
     pub za: f64,
     /// Cations per formula unit.
     pub nc: f64,

@@ -110,6 +110,8 @@ pub enum Command {
     PutUserIngredient(Box<IngredientRecord>),
     /// Remove a user-defined solute or ingredient by id.
     RemoveUserRecord(String),
+    /// Add (or replace, by id) the records of a user library file.
+    ImportUserRecords(Box<colligo_core::userlib::UserLibrary>),
     /// Quit (asks about unsaved changes).
     Quit,
 }
@@ -376,6 +378,24 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
             match p.user_ingredients.iter_mut().find(|s| s.id == rec.id) {
                 Some(s) => *s = (**rec).clone(),
                 None => p.user_ingredients.push((**rec).clone()),
+            }
+            p.library(doc.base()).map_err(|e| e.to_string())?;
+            doc.project = p;
+            doc.rebuild_library();
+        }
+        Command::ImportUserRecords(ul) => {
+            let mut p = doc.project.clone();
+            for rec in &ul.solutes {
+                match p.user_solutes.iter_mut().find(|s| s.id == rec.id) {
+                    Some(s) => *s = rec.clone(),
+                    None => p.user_solutes.push(rec.clone()),
+                }
+            }
+            for rec in &ul.ingredients {
+                match p.user_ingredients.iter_mut().find(|s| s.id == rec.id) {
+                    Some(s) => *s = rec.clone(),
+                    None => p.user_ingredients.push(rec.clone()),
+                }
             }
             p.library(doc.base()).map_err(|e| e.to_string())?;
             doc.project = p;

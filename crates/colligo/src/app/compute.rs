@@ -605,3 +605,49 @@ pub fn chart_csv(d: &ChartData) -> String {
     }
     s
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn every_chart_computes_and_exports() {
+        let lib = Arc::new(Library::builtin().unwrap_or_else(|e| panic!("{e}")));
+        let project = crate::app::files::sample(&lib, 3).unwrap_or_else(|e| panic!("{e}"));
+        let f = project.active().clone();
+        let cond = project.conditions.to_conditions();
+        let jobs = [
+            ChartJob::Sweep {
+                ingredient: "sucrose".into(),
+                from_g: 0.0,
+                to_g: 200.0,
+            },
+            ChartJob::PerGram { up_to_g: 50.0 },
+            ChartJob::Freezing { to_c: -30.0 },
+            ChartJob::VaporPressure {
+                from_c: 0.0,
+                to_c: 100.0,
+            },
+        ];
+        for job in jobs {
+            let d = chart_now(&lib, &f, &cond, ModelId::Auto, job.clone());
+            assert!(!matches!(d, ChartData::Failed(_)), "{job:?}: {d:?}");
+            let csv = chart_csv(&d);
+            let rows = csv.lines().count();
+            assert!(rows > 20, "{job:?}: {rows} rows");
+            assert!(!csv.contains("NaN,NaN"), "{job:?}");
+        }
+        // The ice fraction of the ice-cream mix grows as it cools.
+        if let ChartData::Freezing(c) = chart_now(
+            &lib,
+            &f,
+            &cond,
+            ModelId::Auto,
+            ChartJob::Freezing { to_c: -30.0 },
+        ) {
+            let f: Vec<f64> = c.points.iter().map(|p| p.ice_fraction_of_water).collect();
+            assert!(f.windows(2).all(|w| w[1] >= w[0] - 1e-9));
+            assert!(f.last().copied().unwrap_or(0.0) > 0.5);
+        }
+    }
+}

@@ -21,7 +21,7 @@ pub struct Document {
     base: Arc<Library>,
     saved: Project,
     undoer: Undoer<Project>,
-    /// Bumped on every change; views key their caches on it.
+    /// Bumped on every change (autosave and the variant comparison key on it).
     pub revision: u64,
 }
 

@@ -24,7 +24,10 @@ use files::{PathDialog, PathPurpose, Recovery};
 use panels::charts::ChartsPanel;
 use panels::conditions::ConditionsPanel;
 use panels::formula::FormulaPanel;
+use panels::goal::GoalDialog;
+use panels::library::LibraryWindow;
 use panels::results::ResultsPanel;
+use panels::stability::StabilityPanel;
 use prefs::Prefs;
 
 /// How the app starts.
@@ -48,6 +51,13 @@ pub enum Modal {
     },
     /// Pick a path.
     Path(PathDialog),
+    /// Rename a variant.
+    Rename {
+        /// Variant index.
+        index: usize,
+        /// The name being typed.
+        text: String,
+    },
     /// A recovery file from a session that ended without saving.
     Recover {
         /// The recovered project.
@@ -101,6 +111,12 @@ pub struct WorkbenchApp {
     pub results_panel: ResultsPanel,
     /// Charts.
     pub charts_panel: ChartsPanel,
+    /// Stability guidance.
+    pub stability_panel: StabilityPanel,
+    /// Goal seek.
+    pub goal: GoalDialog,
+    /// The user's own records.
+    pub library_window: LibraryWindow,
     /// Commands emitted this frame.
     pub pending: Vec<Command>,
     /// The open dialog.
@@ -113,6 +129,7 @@ pub struct WorkbenchApp {
     base: Arc<Library>,
     allow_close: bool,
     discarding: bool,
+    after_save: Option<Command>,
     themed: bool,
     last_title: String,
     autosaved_revision: Option<u64>,
@@ -162,13 +179,14 @@ impl WorkbenchApp {
             charts: ChartWorker::new(),
             formula_panel: FormulaPanel::default(),
             conditions_panel: ConditionsPanel::default(),
-            results_panel: ResultsPanel {
-                show_comparison: prefs.show_comparison,
-            },
+            results_panel: ResultsPanel::default(),
             charts_panel: ChartsPanel {
                 tab: prefs.chart_tab,
                 ..ChartsPanel::default()
             },
+            stability_panel: StabilityPanel::default(),
+            goal: GoalDialog::default(),
+            library_window: LibraryWindow::default(),
             prefs,
             eval: None,
             pending: Vec::new(),
@@ -179,6 +197,7 @@ impl WorkbenchApp {
             base,
             allow_close: false,
             discarding: false,
+            after_save: None,
             themed: false,
             last_title: String::new(),
             autosaved_revision: None,
@@ -290,6 +309,8 @@ impl WorkbenchApp {
                         self.conditions_panel.ui(ui, &self.doc, &mut self.pending);
                         ui.separator();
                         self.results_panel.ui(ui, &self.doc, self.eval.as_ref());
+                        ui.separator();
+                        self.stability_panel.ui(ui, &self.doc, self.eval.as_ref());
                     });
             });
         self.prefs.results_width = resp.response.rect.width();
@@ -299,6 +320,14 @@ impl WorkbenchApp {
             self.formula_panel
                 .ui(ui, &self.doc, self.eval.as_ref(), &mut self.pending);
         });
+        self.goal.ui(&ctx, &self.doc, &mut self.pending);
+        let lib_out = self.library_window.ui(&ctx, &self.doc, &mut self.pending);
+        if lib_out.export {
+            self.library_dialog(PathPurpose::ExportLibrary);
+        }
+        if lib_out.import {
+            self.library_dialog(PathPurpose::ImportLibrary);
+        }
         self.modal_ui(&ctx);
 
         let time = ctx.input(|i| i.time);
@@ -457,6 +486,21 @@ impl WorkbenchApp {
         self.modal = Some(Modal::Path(PathDialog::new(PathPurpose::Save, suggestion)));
     }
 
+    fn library_dialog(&mut self, purpose: PathPurpose) {
+        let dir = self
+            .doc
+            .path
+            .as_ref()
+            .and_then(|p| p.parent().map(Path::to_path_buf))
+            .or_else(|| std::env::current_dir().ok())
+            .unwrap_or_default();
+        let start = match purpose {
+            PathPurpose::ExportLibrary => dir.join("my_ingredients.ron").display().to_string(),
+            _ => format!("{}/", dir.display()),
+        };
+        self.modal = Some(Modal::Path(PathDialog::new(purpose, start)));
+    }
+
     fn export_chart_dialog(&mut self) {
         let dir = self
             .doc
@@ -555,12 +599,18 @@ impl WorkbenchApp {
                 ui.add_enabled_ui(can_redo, |ui| self.menu_item(ui, Command::Redo));
             });
             ui.menu_button("Variant", |ui| {
-                if ui.button("New variant").clicked() {
-                    self.pending.push(Command::NewVariant);
+                self.variant_menu(ui, self.doc.project.active_variant)
+            });
+            ui.menu_button("Tools", |ui| {
+                if ui
+                    .button("Solve for a target…")
+                    .on_hover_text("Find the amount of one ingredient that reaches a target")
+                    .clicked()
+                {
+                    self.goal.open_for(&self.doc);
                 }
-                if ui.button("Duplicate this variant").clicked() {
-                    self.pending
-                        .push(Command::DuplicateVariant(self.doc.project.active_variant));
+                if ui.button("My ingredients and solutes…").clicked() {
+                    self.library_window.open = true;
                 }
             });
             ui.add_space(16.0);
@@ -580,14 +630,55 @@ impl WorkbenchApp {
         }
     }
 
+    fn variant_menu(&mut self, ui: &mut egui::Ui, i: usize) {
+        if ui.button("New variant").clicked() {
+            self.pending.push(Command::NewVariant);
+        }
+        if ui.button("Duplicate variant").clicked() {
+            self.pending.push(Command::DuplicateVariant(i));
+        }
+        if ui.button("Rename variant…").clicked() {
+            let text = self
+                .doc
+                .project
+                .variants
+                .get(i)
+                .map(|v| v.name.clone())
+                .unwrap_or_default();
+            self.modal = Some(Modal::Rename { index: i, text });
+        }
+        let can_delete = self.doc.project.variants.len() > 1;
+        if ui
+            .add_enabled(can_delete, egui::Button::new("Delete variant"))
+            .clicked()
+        {
+            self.pending.push(Command::DeleteVariant(i));
+        }
+        ui.separator();
+        if ui.button("Compare variants").clicked() {
+            self.charts_panel.tab = prefs::ChartTab::Variants;
+        }
+    }
+
     fn variant_strip(&mut self, ui: &mut egui::Ui) {
         ui.horizontal_wrapped(|ui| {
             ui.label(RichText::new("Variants").color(theme::MUTED));
-            for (i, v) in self.doc.project.variants.iter().enumerate() {
+            let names: Vec<String> = self
+                .doc
+                .project
+                .variants
+                .iter()
+                .map(|v| v.name.clone())
+                .collect();
+            for (i, name) in names.iter().enumerate() {
                 let active = i == self.doc.project.active_variant;
-                if ui.selectable_label(active, &v.name).clicked() && !active {
+                let r = ui
+                    .selectable_label(active, name)
+                    .on_hover_text("right-click: rename, duplicate, delete");
+                if r.clicked() && !active {
                     self.pending.push(Command::SelectVariant(i));
                 }
+                r.context_menu(|ui| self.variant_menu(ui, i));
             }
             if ui.small_button("+").on_hover_text("New variant").clicked() {
                 self.pending.push(Command::NewVariant);
@@ -626,7 +717,6 @@ impl WorkbenchApp {
         let Some(modal) = self.modal.take() else {
             return;
         };
-        let mut keep = true;
         match modal {
             Modal::Unsaved { then } => {
                 let mut choice = None;
@@ -649,26 +739,24 @@ impl WorkbenchApp {
                     });
                 });
                 match choice {
-                    Some(0) => {
-                        keep = false;
-                        match self.doc.path.clone() {
-                            Some(p) => {
-                                self.save_to(&p);
-                                if !self.doc.is_dirty() {
-                                    self.discard_and(ctx, *then);
-                                }
+                    Some(0) => match self.doc.path.clone() {
+                        Some(p) => {
+                            self.save_to(&p);
+                            if !self.doc.is_dirty() {
+                                self.discard_and(ctx, *then);
                             }
-                            None => self.save_as_dialog(),
                         }
-                    }
-                    Some(1) => {
-                        keep = false;
-                        self.discard_and(ctx, *then);
-                    }
-                    Some(2) => keep = false,
+                        None => {
+                            // Ask where to save; the pending action runs
+                            // once the save succeeds.
+                            self.after_save = Some(*then);
+                            self.save_as_dialog();
+                        }
+                    },
+                    Some(1) => self.discard_and(ctx, *then),
+                    Some(2) => {}
                     _ => self.modal = Some(Modal::Unsaved { then }),
                 }
-                let _ = keep;
             }
             Modal::Path(mut d) => {
                 d.poll();
@@ -720,8 +808,36 @@ impl WorkbenchApp {
                         d.error = Some("type a file path".into());
                         self.modal = Some(Modal::Path(d));
                     }
-                    Some(None) => {}
-                    Some(Some(p)) => self.finish_path(d, p),
+                    Some(None) => self.after_save = None,
+                    Some(Some(p)) => self.finish_path(ctx, d, p),
+                }
+            }
+            Modal::Rename { index, mut text } => {
+                let mut done = None;
+                egui::Modal::new(egui::Id::unique("rename")).show(ctx, |ui| {
+                    ui.heading("Rename variant");
+                    let l = ui.label("New name");
+                    let r = ui
+                        .add(egui::TextEdit::singleline(&mut text).desired_width(260.0))
+                        .labelled_by(l.id);
+                    if r.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter)) {
+                        done = Some(true);
+                    }
+                    ui.horizontal(|ui| {
+                        if ui.button("Rename").clicked() {
+                            done = Some(true);
+                        }
+                        if ui.button("Cancel").clicked() {
+                            done = Some(false);
+                        }
+                    });
+                });
+                match done {
+                    Some(true) => self
+                        .pending
+                        .push(Command::RenameVariant { index, name: text }),
+                    Some(false) => {}
+                    None => self.modal = Some(Modal::Rename { index, text }),
                 }
             }
             Modal::Recover {
@@ -774,7 +890,7 @@ impl WorkbenchApp {
         self.discarding = false;
     }
 
-    fn finish_path(&mut self, mut d: PathDialog, p: PathBuf) {
+    fn finish_path(&mut self, ctx: &egui::Context, mut d: PathDialog, p: PathBuf) {
         match d.purpose {
             PathPurpose::Open => {
                 if !p.exists() {
@@ -784,7 +900,14 @@ impl WorkbenchApp {
                 }
                 self.open_path(&p);
             }
-            PathPurpose::Save => self.save_to(&p),
+            PathPurpose::Save => {
+                self.save_to(&p);
+                if let Some(then) = self.after_save.take()
+                    && !self.doc.is_dirty()
+                {
+                    self.discard_and(ctx, then);
+                }
+            }
             PathPurpose::ExportCsv => {
                 let data = self.charts.current().or(self.charts.last());
                 match data {
@@ -798,7 +921,33 @@ impl WorkbenchApp {
                     None => self.say("No chart data yet", true),
                 }
             }
-            PathPurpose::ExportLibrary | PathPurpose::ImportLibrary => {}
+            PathPurpose::ExportLibrary => {
+                let ul = colligo_core::userlib::UserLibrary::new(
+                    self.doc.project.user_solutes.clone(),
+                    self.doc.project.user_ingredients.clone(),
+                );
+                match ul.save(&p) {
+                    Ok(()) => self.say(
+                        format!(
+                            "Exported {} records to {}",
+                            ul.solutes.len() + ul.ingredients.len(),
+                            p.display()
+                        ),
+                        false,
+                    ),
+                    Err(e) => self.say(format!("Not exported: {e}"), true),
+                }
+            }
+            PathPurpose::ImportLibrary => {
+                match colligo_core::userlib::UserLibrary::load(&p, &self.base) {
+                    Ok(ul) => {
+                        let n = ul.solutes.len() + ul.ingredients.len();
+                        self.pending.push(Command::ImportUserRecords(Box::new(ul)));
+                        self.say(format!("Imported {n} records from {}", p.display()), false);
+                    }
+                    Err(e) => self.say(format!("Not imported: {e}"), true),
+                }
+            }
         }
     }
 }

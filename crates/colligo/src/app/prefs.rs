@@ -22,6 +22,10 @@ pub enum ChartTab {
     Freezing,
     /// Vapour pressure against temperature.
     VaporPressure,
+    /// Every variant side by side.
+    Variants,
+    /// Which ingredient moves a_w most per gram.
+    Ranking,
 }
 
 /// Preferences.
@@ -36,8 +40,6 @@ pub struct Prefs {
     pub chart_height: f32,
     /// Width of the results column, points.
     pub results_width: f32,
-    /// Whether the model comparison table is open.
-    pub show_comparison: bool,
 }
 
 impl Default for Prefs {
@@ -47,7 +49,6 @@ impl Default for Prefs {
             chart_tab: ChartTab::Sweep,
             chart_height: 300.0,
             results_width: 380.0,
-            show_comparison: true,
         }
     }
 }

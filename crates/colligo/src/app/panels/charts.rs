@@ -24,6 +24,10 @@ use crate::app::theme;
 /// The chart panel's own settings (not part of the document).
 #[derive(Debug)]
 pub struct ChartsPanel {
+    /// Variant comparison (computed on the UI thread: a few evaluations).
+    pub comparison: super::compare::Comparison,
+    /// Ingredient ranking.
+    pub ranking: super::compare::Ranking,
     /// Tab shown.
     pub tab: ChartTab,
     /// Ingredient swept (id), None: the first line.
@@ -39,6 +43,8 @@ pub struct ChartsPanel {
 impl Default for ChartsPanel {
     fn default() -> Self {
         ChartsPanel {
+            comparison: super::compare::Comparison::default(),
+            ranking: super::compare::Ranking::default(),
             tab: ChartTab::Sweep,
             sweep_ingredient: None,
             sweep_property: SweepProperty::WaterActivity,
@@ -93,6 +99,7 @@ impl ChartsPanel {
                 from_c: self.vp_range_c.0,
                 to_c: self.vp_range_c.1,
             },
+            ChartTab::Variants | ChartTab::Ranking => return None,
         })
     }
 
@@ -126,6 +133,8 @@ impl ChartsPanel {
                 (ChartTab::PerGram, "Lowering per gram"),
                 (ChartTab::Freezing, "Freezing curve"),
                 (ChartTab::VaporPressure, "Vapour pressure"),
+                (ChartTab::Variants, "Compare variants"),
+                (ChartTab::Ranking, "What matters most"),
             ] {
                 ui.selectable_value(&mut self.tab, tab, name);
             }
@@ -144,6 +153,17 @@ impl ChartsPanel {
                 }
             });
         });
+        match self.tab {
+            ChartTab::Variants => {
+                self.comparison.ui(ui, doc);
+                return out;
+            }
+            ChartTab::Ranking => {
+                self.ranking.ui(ui, doc);
+                return out;
+            }
+            _ => {}
+        }
         self.controls(ui, doc);
         out.job = self.job(doc, eval);
         match data {
@@ -209,11 +229,12 @@ impl ChartsPanel {
                     self.vp_range_c.1 = self.vp_range_c.0 + 1.0;
                 }
             }
+            ChartTab::Variants | ChartTab::Ranking => {}
         });
     }
 
     fn plot(&self, ui: &mut egui::Ui, doc: &Document, eval: Option<&Evaluation>, d: &ChartData) {
-        let h = ui.available_height().max(120.0);
+        let h = ui.available_height().max(200.0);
         match d {
             ChartData::Sweep {
                 ingredient,

@@ -117,7 +117,7 @@ impl FormulaPanel {
             .show(ui, |ui| {
                 egui::Grid::new("formula-grid")
                     .striped(true)
-                    .num_columns(8)
+                    .num_columns(7)
                     .spacing([10.0, 4.0])
                     .show(ui, |ui| {
                         for h in [
@@ -140,26 +140,9 @@ impl FormulaPanel {
                                 .map_or(line.ingredient.as_str(), |k| {
                                     doc.lib.ingredients[k].name()
                                 });
-                            ui.horizontal(|ui| {
-                                if tool(ui, "up", &format!("Move {name} up"), i > 0).clicked() {
-                                    out.push(Command::MoveLine { from: i, to: i - 1 });
-                                }
-                                if tool(ui, "down", &format!("Move {name} down"), i + 1 < n)
-                                    .clicked()
-                                {
-                                    out.push(Command::MoveLine { from: i, to: i + 1 });
-                                }
-                                if tool(ui, "copy", &format!("Duplicate the {name} line"), true)
-                                    .clicked()
-                                {
-                                    out.push(Command::DuplicateLine(i));
-                                }
-                                if tool(ui, "remove", &format!("Remove {name}"), true).clicked() {
-                                    out.push(Command::RemoveLine(i));
-                                }
-                            });
+                            line_menu(ui, i, n, name, out);
                             let label = ui
-                                .add(egui::Label::new(name).truncate())
+                                .add_sized([210.0, 18.0], egui::Label::new(name).truncate())
                                 .on_hover_text(format!("{name} (id: {})", line.ingredient));
                             self.amount_cell(ui, i, line.unit, label.id, name, out);
                             unit_combo(ui, i, name, line.amount, line.unit, out);
@@ -405,14 +388,32 @@ fn unit_combo(
     }
 }
 
-/// A small line-tool button whose accessible name says what it does to
-/// which line (the visible text stays short).
-fn tool(ui: &mut egui::Ui, text: &str, what: &str, enabled: bool) -> egui::Response {
-    let r = ui
-        .add_enabled(enabled, egui::Button::new(text).small())
-        .on_hover_text(what);
-    r.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Button, enabled, what));
-    r
+/// The per-line menu: reorder, duplicate, remove.
+fn line_menu(ui: &mut egui::Ui, i: usize, n: usize, name: &str, out: &mut Vec<Command>) {
+    let what = format!("Line tools for {name}");
+    let r = ui.menu_button("…", |ui| {
+        if ui
+            .add_enabled(i > 0, egui::Button::new("Move up"))
+            .clicked()
+        {
+            out.push(Command::MoveLine { from: i, to: i - 1 });
+        }
+        if ui
+            .add_enabled(i + 1 < n, egui::Button::new("Move down"))
+            .clicked()
+        {
+            out.push(Command::MoveLine { from: i, to: i + 1 });
+        }
+        if ui.button("Duplicate this line").clicked() {
+            out.push(Command::DuplicateLine(i));
+        }
+        ui.separator();
+        if ui.button("Remove this line").clicked() {
+            out.push(Command::RemoveLine(i));
+        }
+    });
+    let r = r.response.on_hover_text(&what);
+    r.widget_info(|| egui::WidgetInfo::labeled(egui::Role::Button, true, &what));
 }
 
 fn share_bar(ui: &mut egui::Ui, pct: f64) {

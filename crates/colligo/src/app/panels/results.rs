@@ -10,12 +10,10 @@ use crate::app::document::Document;
 use crate::app::theme;
 use crate::report::CAUTIONS;
 
-/// The results panel (stateless apart from display toggles).
+/// The results panel (its collapsing sections keep their state in egui's
+/// memory, which eframe persists).
 #[derive(Debug, Default)]
-pub struct ResultsPanel {
-    /// Whether the model comparison is expanded.
-    pub show_comparison: bool,
-}
+pub struct ResultsPanel {}
 
 fn t_text(c: f64, u: TemperatureUnit) -> String {
     let k = c + colligo_core::water::T_ZERO_C;
@@ -107,7 +105,7 @@ impl ResultsPanel {
         });
         ui.add_space(4.0);
         egui::CollapsingHeader::new("Every model")
-            .default_open(self.show_comparison)
+            .default_open(true)
             .show(ui, |ui| {
                 egui::Grid::new("models").num_columns(3).striped(true).show(ui, |ui| {
                     ui.label(RichText::new("model").strong());

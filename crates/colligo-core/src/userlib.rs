@@ -1,0 +1,113 @@
+//! User libraries: a file of the user's own solutes and ingredients, to
+//! carry them from one project to another.
+//!
+//! ```text
+//! (
+//!     format_version: 1,
+//!     solutes: [ ... ],
+//!     ingredients: [ ... ],
+//! )
+//! ```
+
+use std::path::Path;
+
+use serde::{Deserialize, Serialize};
+
+use crate::error::ProjectError;
+use crate::library::{IngredientRecord, Library, SoluteRecord};
+use crate::project::write_atomic;
+
+/// The newest user-library format this build reads and writes.
+pub const USER_LIBRARY_VERSION: u32 = 1;
+
+/// A user library file.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct UserLibrary {
+    /// Format version.
+    pub format_version: u32,
+    /// Solutes.
+    #[serde(default)]
+    pub solutes: Vec<SoluteRecord>,
+    /// Ingredients.
+    #[serde(default)]
+    pub ingredients: Vec<IngredientRecord>,
+}
+
+impl UserLibrary {
+    /// A user library with these records.
+    pub fn new(solutes: Vec<SoluteRecord>, ingredients: Vec<IngredientRecord>) -> Self {
+        UserLibrary {
+            format_version: USER_LIBRARY_VERSION,
+            solutes,
+            ingredients,
+        }
+    }
+
+    /// Reads and checks a user library against `base` (every record must
+    /// fit: ids not taken by built-in ones, compositions adding up).
+    ///
+    /// # Errors
+    /// I/O, parse, version and record errors naming the file.
+    pub fn load(path: &Path, base: &Library) -> Result<UserLibrary, ProjectError> {
+        let shown = path.display().to_string();
+        let text = std::fs::read_to_string(path).map_err(|e| ProjectError::Io {
+            path: shown.clone(),
+            message: e.to_string(),
+        })?;
+        let opts = ron::Options::default()
+            .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME);
+        let lib: UserLibrary = opts.from_str(&text).map_err(|e| ProjectError::Parse {
+            path: shown.clone(),
+            message: e.to_string(),
+        })?;
+        if lib.format_version != USER_LIBRARY_VERSION {
+            return Err(ProjectError::Version {
+                path: shown,
+                found: lib.format_version,
+                supported: USER_LIBRARY_VERSION,
+            });
+        }
+        lib.check(base).map_err(|message| ProjectError::Invalid {
+            path: shown,
+            field: "solutes / ingredients".into(),
+            message,
+        })?;
+        Ok(lib)
+    }
+
+    /// Checks that every record fits on top of `base`.
+    ///
+    /// # Errors
+    /// The first record that does not fit.
+    pub fn check(&self, base: &Library) -> Result<(), String> {
+        let mut lib = base.clone();
+        for s in &self.solutes {
+            lib.add_user_solute(s.clone()).map_err(|e| e.to_string())?;
+        }
+        for i in &self.ingredients {
+            lib.add_ingredient(i.clone(), true)
+                .map_err(|e| e.to_string())?;
+        }
+        Ok(())
+    }
+
+    /// Writes the library atomically.
+    ///
+    /// # Errors
+    /// Serialisation or I/O errors naming the path.
+    pub fn save(&self, path: &Path) -> Result<(), ProjectError> {
+        let cfg = ron::ser::PrettyConfig::new().struct_names(false);
+        let body = ron::ser::to_string_pretty(self, cfg).map_err(|e| ProjectError::Parse {
+            path: path.display().to_string(),
+            message: e.to_string(),
+        })?;
+        write_atomic(
+            path,
+            format!(
+                "// Colligo user library (RON), format version {USER_LIBRARY_VERSION}.\n{body}\n"
+            )
+            .as_bytes(),
+        )
+    }
+}

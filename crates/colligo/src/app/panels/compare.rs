@@ -1,0 +1,254 @@
+//! Deciding between formulas: every variant's properties side by side, and
+//! which ingredient of the current variant moves a_w and the freezing
+//! point most per gram.
+
+use colligo_core::properties::{self, Properties, Wanted};
+use colligo_core::sweep::{Sensitivity, sensitivities};
+use egui::RichText;
+use egui_plot::{Bar, BarChart, Legend, Plot};
+
+use crate::app::document::Document;
+use crate::app::theme;
+
+/// One variant's results.
+#[derive(Debug, Clone)]
+pub struct VariantRow {
+    /// Variant name.
+    pub name: String,
+    /// Its properties, or why not.
+    pub props: Result<Properties, String>,
+}
+
+/// The variant comparison, recomputed when the project changes.
+#[derive(Debug, Default)]
+pub struct Comparison {
+    key: Option<(u64, usize)>,
+    /// One row per variant, in project order.
+    pub rows: Vec<VariantRow>,
+}
+
+impl Comparison {
+    /// Recomputes when the document changed.
+    pub fn refresh(&mut self, doc: &Document) {
+        let key = (doc.revision, doc.project.variants.len());
+        if self.key == Some(key) {
+            return;
+        }
+        self.key = Some(key);
+        let cond = doc.project.conditions.to_conditions();
+        self.rows = doc
+            .project
+            .variants
+            .iter()
+            .map(|v| VariantRow {
+                name: v.name.clone(),
+                props: v
+                    .composition(&doc.lib)
+                    .map_err(|e| e.to_string())
+                    .and_then(|c| {
+                        properties::evaluate(&doc.lib, &c, doc.project.model, &cond, Wanted::ALL)
+                            .map_err(|e| e.to_string())
+                    }),
+            })
+            .collect();
+    }
+
+    /// Shows the table and a chart of the variants.
+    pub fn ui(&mut self, ui: &mut egui::Ui, doc: &Document) {
+        self.refresh(doc);
+        let active = doc.project.active_variant;
+        ui.horizontal_top(|ui| {
+            ui.vertical(|ui| {
+                egui::Grid::new("variant-table")
+                    .num_columns(8)
+                    .striped(true)
+                    .spacing([12.0, 3.0])
+                    .show(ui, |ui| {
+                        for h in [
+                            "variant",
+                            "a_w",
+                            "ERH %",
+                            "freezing °C",
+                            "ice at storage",
+                            "boiling °C",
+                            "water %",
+                            "soluble solids %",
+                        ] {
+                            ui.label(RichText::new(h).strong());
+                        }
+                        ui.end_row();
+                        for (i, r) in self.rows.iter().enumerate() {
+                            let name = if i == active {
+                                RichText::new(&r.name).strong().color(theme::ACCENT)
+                            } else {
+                                RichText::new(&r.name)
+                            };
+                            ui.label(name);
+                            match &r.props {
+                                Ok(p) => {
+                                    ui.label(format!("{:.4}", p.water_activity));
+                                    ui.label(format!("{:.1}", p.erh_percent));
+                                    ui.label(
+                                        p.freezing_point_c
+                                            .map_or("—".into(), |c| format!("{c:.2}")),
+                                    );
+                                    ui.label(
+                                        p.ice_fraction_of_water.map_or("—".into(), |f| {
+                                            format!("{:.1} %", 100.0 * f)
+                                        }),
+                                    );
+                                    ui.label(
+                                        p.boiling_point_c
+                                            .map_or("—".into(), |c| format!("{c:.2}")),
+                                    );
+                                    ui.label(format!("{:.1}", p.water_percent));
+                                    ui.label(format!("{:.1}", p.soluble_solids_percent));
+                                }
+                                Err(e) => {
+                                    ui.label(RichText::new(e).color(theme::ERROR));
+                                    for _ in 0..6 {
+                                        ui.label("");
+                                    }
+                                }
+                            }
+                            ui.end_row();
+                        }
+                    });
+            });
+            let bars: Vec<Bar> = self
+                .rows
+                .iter()
+                .enumerate()
+                .filter_map(|(i, r)| {
+                    let p = r.props.as_ref().ok()?;
+                    Some(
+                        Bar::new(i as f64, p.water_activity)
+                            .name(&r.name)
+                            .width(0.6)
+                            .fill(if i == active {
+                                theme::ACCENT
+                            } else {
+                                theme::SERIES[1]
+                            }),
+                    )
+                })
+                .collect();
+            let names: Vec<String> = self.rows.iter().map(|r| r.name.clone()).collect();
+            let lo = self
+                .rows
+                .iter()
+                .filter_map(|r| r.props.as_ref().ok().map(|p| p.water_activity))
+                .fold(1.0f64, f64::min);
+            Plot::new("variant-bars")
+                .height(ui.available_height().max(150.0))
+                .width(ui.available_width().max(200.0))
+                .y_axis_label("a_w")
+                .include_y((lo - 0.02).max(0.0))
+                .include_y(1.0)
+                .legend(Legend::default())
+                .x_axis_formatter(move |m, _| {
+                    names
+                        .get(m.value.round() as usize)
+                        .filter(|_| (m.value - m.value.round()).abs() < 1e-6)
+                        .cloned()
+                        .unwrap_or_default()
+                })
+                .show(ui, |pu| pu.bar_chart(BarChart::new("a_w by variant", bars)));
+        });
+    }
+}
+
+/// Which ingredient matters: per-gram effects, recomputed on change.
+#[derive(Debug)]
+pub struct Ranking {
+    key: Option<u64>,
+    /// Ranked rows, strongest a_w lowering first, or why not.
+    pub rows: Result<Vec<Sensitivity>, String>,
+}
+
+impl Default for Ranking {
+    fn default() -> Self {
+        Ranking {
+            key: None,
+            rows: Ok(Vec::new()),
+        }
+    }
+}
+
+impl Ranking {
+    /// Recomputes when the document changed.
+    pub fn refresh(&mut self, doc: &Document) {
+        if self.key == Some(doc.revision) && self.rows.is_ok() {
+            return;
+        }
+        self.key = Some(doc.revision);
+        let mut ids: Vec<String> = Vec::new();
+        for l in &doc.formula().lines {
+            if !ids.contains(&l.ingredient) {
+                ids.push(l.ingredient.clone());
+            }
+        }
+        let cond = doc.project.conditions.to_conditions();
+        self.rows = sensitivities(&doc.lib, doc.formula(), &ids, doc.project.model, &cond, 1.0)
+            .map_err(|e| e.to_string());
+    }
+
+    /// Shows the ranked table.
+    pub fn ui(&mut self, ui: &mut egui::Ui, doc: &Document) {
+        self.refresh(doc);
+        ui.label(
+            RichText::new("Change of a_w and of the freezing point for one gram more or less of each ingredient, strongest first.")
+                .small()
+                .color(theme::MUTED),
+        );
+        let rows = match &self.rows {
+            Ok(r) => r,
+            Err(e) => {
+                ui.label(RichText::new(e).color(theme::ERROR));
+                return;
+            }
+        };
+        let name = |id: &str| {
+            doc.lib.ingredient(id).map_or(id.to_string(), |i| {
+                doc.lib.ingredients[i].name().to_string()
+            })
+        };
+        egui::ScrollArea::vertical()
+            .id_salt("ranking")
+            .show(ui, |ui| {
+                egui::Grid::new("ranking-grid")
+                    .num_columns(6)
+                    .striped(true)
+                    .spacing([14.0, 3.0])
+                    .show(ui, |ui| {
+                        for h in [
+                            "rank",
+                            "ingredient",
+                            "Δa_w per g added",
+                            "Δa_w per g removed",
+                            "Δ freezing K per g added",
+                            "Δ freezing K per g removed",
+                        ] {
+                            ui.label(RichText::new(h).strong());
+                        }
+                        ui.end_row();
+                        let fmt = |v: f64| {
+                            if v.is_finite() {
+                                format!("{v:+.2e}")
+                            } else {
+                                "—".into()
+                            }
+                        };
+                        for (k, r) in rows.iter().enumerate() {
+                            ui.label(format!("{}", k + 1));
+                            ui.label(name(&r.ingredient));
+                            ui.label(RichText::new(fmt(r.aw_per_g_added)).monospace());
+                            ui.label(RichText::new(fmt(r.aw_per_g_removed)).monospace());
+                            ui.label(RichText::new(fmt(r.fp_per_g_added)).monospace());
+                            ui.label(RichText::new(fmt(r.fp_per_g_removed)).monospace());
+                            ui.end_row();
+                        }
+                    });
+            });
+    }
+}
