@@ -716,3 +716,43 @@ fn the_user_library_exports_and_imports() {
     );
     assert!(h.state().doc.lib.ingredient("house_syrup").is_some());
 }
+
+#[test]
+fn chart_data_exports_to_csv() {
+    let dir = data_dir("csv");
+    let mut h = harness_in(dir.clone());
+    // Wait for the worker's sweep.
+    for _ in 0..400 {
+        h.step();
+        if h.state().charts.current().is_some() {
+            break;
+        }
+        std::thread::sleep(std::time::Duration::from_millis(5));
+    }
+    assert!(h.state().charts.current().is_some(), "no chart data");
+    h.get_by_label("Export CSV…").click();
+    h.run();
+    let file = dir.join("sweep.csv");
+    retype(&mut h, "File", &file.display().to_string());
+    let text =
+        std::fs::read_to_string(&file).unwrap_or_else(|e| panic!("{e}: {:?}", h.state().status));
+    let mut lines = text.lines();
+    assert!(
+        lines
+            .next()
+            .is_some_and(|l| l.ends_with("_g,water_activity,freezing_point_c,vapor_pressure_pa"))
+    );
+    assert!(lines.count() > 100);
+    // The comparison tab exports its table.
+    h.get_by_label("Compare variants").click();
+    h.run();
+    h.get_by_label("Export CSV…").click();
+    h.run();
+    let file = dir.join("variants.csv");
+    retype(&mut h, "File", &file.display().to_string());
+    let text = std::fs::read_to_string(&file).unwrap_or_else(|e| panic!("{e}"));
+    assert_eq!(
+        text.lines().count(),
+        1 + h.state().doc.project.variants.len()
+    );
+}

@@ -909,12 +909,17 @@ impl WorkbenchApp {
                 }
             }
             PathPurpose::ExportCsv => {
-                let data = self.charts.current().or(self.charts.last());
-                match data {
-                    Some(data) => match colligo_core::project::write_atomic(
-                        &p,
-                        compute::chart_csv(data).as_bytes(),
-                    ) {
+                let text = match self.charts_panel.tab {
+                    prefs::ChartTab::Variants => Some(self.charts_panel.comparison.csv()),
+                    prefs::ChartTab::Ranking => Some(self.charts_panel.ranking.csv()),
+                    _ => self
+                        .charts
+                        .current()
+                        .or(self.charts.last())
+                        .map(compute::chart_csv),
+                };
+                match text {
+                    Some(text) => match colligo_core::project::write_atomic(&p, text.as_bytes()) {
                         Ok(()) => self.say(format!("Exported {}", p.display()), false),
                         Err(e) => self.say(format!("Not exported: {e}"), true),
                     },

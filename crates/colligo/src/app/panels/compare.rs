@@ -28,6 +28,31 @@ pub struct Comparison {
 }
 
 impl Comparison {
+    /// The table as CSV.
+    pub fn csv(&self) -> String {
+        let mut s = String::from(
+            "variant,water_activity,erh_percent,freezing_point_c,ice_fraction_of_water,boiling_point_c,water_percent,soluble_solids_percent,error\n",
+        );
+        let o = |v: Option<f64>| v.map_or(String::new(), |x| x.to_string());
+        for r in &self.rows {
+            let name = crate::cli::csv_field(&r.name);
+            match &r.props {
+                Ok(p) => s.push_str(&format!(
+                    "{name},{},{},{},{},{},{},{},\n",
+                    p.water_activity,
+                    p.erh_percent,
+                    o(p.freezing_point_c),
+                    o(p.ice_fraction_of_water),
+                    o(p.boiling_point_c),
+                    p.water_percent,
+                    p.soluble_solids_percent
+                )),
+                Err(e) => s.push_str(&format!("{name},,,,,,,,{}\n", crate::cli::csv_field(e))),
+            }
+        }
+        s
+    }
+
     /// Recomputes when the document changed.
     pub fn refresh(&mut self, doc: &Document) {
         let key = (doc.revision, doc.project.variants.len());
@@ -115,6 +140,14 @@ impl Comparison {
                         }
                     });
             });
+            // Bars start a little below the lowest a_w, so that the
+            // differences between variants are visible.
+            let lo = self
+                .rows
+                .iter()
+                .filter_map(|r| r.props.as_ref().ok().map(|p| p.water_activity))
+                .fold(1.0f64, f64::min);
+            let base = ((lo - 0.02) * 50.0).floor() / 50.0;
             let bars: Vec<Bar> = self
                 .rows
                 .iter()
@@ -122,7 +155,8 @@ impl Comparison {
                 .filter_map(|(i, r)| {
                     let p = r.props.as_ref().ok()?;
                     Some(
-                        Bar::new(i as f64, p.water_activity)
+                        Bar::new(i as f64, p.water_activity - base)
+                            .base_offset(base)
                             .name(&r.name)
                             .width(0.6)
                             .fill(if i == active {
@@ -134,16 +168,12 @@ impl Comparison {
                 })
                 .collect();
             let names: Vec<String> = self.rows.iter().map(|r| r.name.clone()).collect();
-            let lo = self
-                .rows
-                .iter()
-                .filter_map(|r| r.props.as_ref().ok().map(|p| p.water_activity))
-                .fold(1.0f64, f64::min);
+
             Plot::new("variant-bars")
                 .height(ui.available_height().max(150.0))
                 .width(ui.available_width().max(200.0))
                 .y_axis_label("a_w")
-                .include_y((lo - 0.02).max(0.0))
+                .include_y(base)
                 .include_y(1.0)
                 .legend(Legend::default())
                 .x_axis_formatter(move |m, _| {
@@ -176,6 +206,27 @@ impl Default for Ranking {
 }
 
 impl Ranking {
+    /// The ranking as CSV.
+    pub fn csv(&self) -> String {
+        let mut s = String::from(
+            "rank,ingredient,aw_per_g_added,aw_per_g_removed,fp_k_per_g_added,fp_k_per_g_removed\n",
+        );
+        if let Ok(rows) = &self.rows {
+            for (k, r) in rows.iter().enumerate() {
+                s.push_str(&format!(
+                    "{},{},{},{},{},{}\n",
+                    k + 1,
+                    r.ingredient,
+                    r.aw_per_g_added,
+                    r.aw_per_g_removed,
+                    r.fp_per_g_added,
+                    r.fp_per_g_removed
+                ));
+            }
+        }
+        s
+    }
+
     /// Recomputes when the document changed.
     pub fn refresh(&mut self, doc: &Document) {
         if self.key == Some(doc.revision) && self.rows.is_ok() {

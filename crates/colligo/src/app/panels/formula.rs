@@ -142,7 +142,12 @@ impl FormulaPanel {
                                 });
                             line_menu(ui, i, n, name, out);
                             let label = ui
-                                .add_sized([210.0, 18.0], egui::Label::new(name).truncate())
+                                .allocate_ui_with_layout(
+                                    egui::vec2(210.0, 18.0),
+                                    egui::Layout::left_to_right(egui::Align::Center),
+                                    |ui| ui.add(egui::Label::new(name).truncate()),
+                                )
+                                .inner
                                 .on_hover_text(format!("{name} (id: {})", line.ingredient));
                             self.amount_cell(ui, i, line.unit, label.id, name, out);
                             unit_combo(ui, i, name, line.amount, line.unit, out);

@@ -62,6 +62,7 @@ impl ResultsPanel {
                 .small()
                 .color(theme::MUTED),
         );
+        super::stability::scale_for(ui, doc, eval);
         ui.add_space(4.0);
         egui::Grid::new("props").num_columns(2).striped(true).spacing([16.0, 3.0]).show(ui, |ui| {
             let mut row = |k: &str, v: String, tip: &str| {

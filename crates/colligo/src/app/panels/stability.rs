@@ -50,9 +50,7 @@ impl StabilityPanel {
         let aw = eval
             .and_then(|e| e.props.as_ref().ok())
             .map(|p| p.water_activity);
-        let band = eval.and_then(|e| e.band);
         let lines = lines_for(doc, kind);
-        scale(ui, &lines, aw, band);
         egui::CollapsingHeader::new(format!("{} guidance lines", lines.len()))
             .id_salt("stability-list")
             .default_open(self.show_list)
@@ -98,6 +96,41 @@ impl StabilityPanel {
             .italics()
             .color(theme::MUTED),
         );
+    }
+}
+
+/// The a_w scale for the document's product kind, with the formula's a_w
+/// and the model band.
+pub fn scale_for(ui: &mut Ui, doc: &Document, eval: &Evaluation) {
+    let aw = eval.props.as_ref().ok().map(|p| p.water_activity);
+    let lines = lines_for(doc, doc.project.product);
+    scale(ui, &lines, aw, eval.band);
+    if let Some(a) = aw {
+        // The nearest lines on either side, named.
+        let below = lines
+            .iter()
+            .filter(|t| t.water_activity <= a)
+            .max_by(|x, y| x.water_activity.total_cmp(&y.water_activity));
+        let above = lines
+            .iter()
+            .filter(|t| t.water_activity > a)
+            .min_by(|x, y| x.water_activity.total_cmp(&y.water_activity));
+        let text = match (below, above) {
+            (Some(b), Some(u)) => format!(
+                "{a:.3} lies above “{}” ({:.3}) and below “{}” ({:.3})",
+                b.label, b.water_activity, u.label, u.water_activity
+            ),
+            (None, Some(u)) => format!(
+                "{a:.3} is below every line; the lowest is “{}” ({:.3})",
+                u.label, u.water_activity
+            ),
+            (Some(b), None) => format!(
+                "{a:.3} is above every line; the highest is “{}” ({:.3})",
+                b.label, b.water_activity
+            ),
+            (None, None) => String::new(),
+        };
+        ui.label(RichText::new(text).small().color(theme::MUTED));
     }
 }
 
