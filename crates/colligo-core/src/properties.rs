@@ -346,65 +346,89 @@ pub fn ice_fraction(
             fully_frozen: true,
         });
     }
-    // Unknown u = ln(w / W), the liquid share of the water. f rises with u.
-    let mut f = |u: f64| ev.ln_aw(t_k, w_total * u.exp(), &mode) - ln_ice;
-    // Start from the neighbouring temperature's answer, extrapolated
-    // linearly when two are known; secant steps from there, with Brent on
-    // [1e-6 of the water, all of it] as the fallback.
-    let u_floor = (1e-6f64).ln();
-    let slope0 = if warm.slope > 0.0 {
-        warm.slope
-    } else {
-        -ln_ice
-    };
-    let x0 = match (warm.ln_liquid, warm.prev, warm.prev2) {
-        // Quadratic through the last three answers (Lagrange form).
-        (Some(u2), Some((t1, u1)), Some((t0, u0)))
-            if warm.t_last != t1 && t1 != t0 && warm.t_last != t0 =>
-        {
-            let t2 = warm.t_last;
-            let l0 = (t_k - t1) * (t_k - t2) / ((t0 - t1) * (t0 - t2));
-            let l1 = (t_k - t0) * (t_k - t2) / ((t1 - t0) * (t1 - t2));
-            let l2 = (t_k - t0) * (t_k - t1) / ((t2 - t0) * (t2 - t1));
-            u0 * l0 + u1 * l1 + u2 * l2
-        }
-        (Some(u1), Some((t0, u0)), _) if warm.t_last != t0 => {
-            u1 + (u1 - u0) * (t_k - warm.t_last) / (warm.t_last - t0)
-        }
-        (Some(u1), _, _) => u1,
-        // Dilute-solution estimate: ln a_w scales with 1/w, so the liquid
-        // share is ln a_w(all liquid) / ln a_w,ice(T).
-        _ => {
-            let y_all = match warm.known_freezing_k {
-                Some(tf) => water::ice_equilibrium_ln_aw(tf),
-                None => f_all_liquid + ln_ice,
-            };
-            if y_all < 0.0 && ln_ice < 0.0 {
-                (y_all / ln_ice).ln()
-            } else {
-                -0.7
+    // ZSR can be turned around: the liquid that gives ln a_w,ice directly.
+    let zsr_liquid =
+        if ev.model() == ModelId::Zsr && !ev.comps.iter().any(|c| c.role == Role::Volatile) {
+            ev.zsr_water_for(t_k, ln_ice, &mode)
+                .filter(|w| *w > 0.0 && *w < w_total)
+        } else {
+            None
+        };
+    let liquid = match zsr_liquid {
+        Some(w) => {
+            let u = (w / w_total).ln();
+            if let Some(u1) = warm.ln_liquid {
+                warm.prev2 = warm.prev;
+                warm.prev = Some((warm.t_last, u1));
             }
+            warm.t_last = t_k;
+            warm.ln_liquid = Some(u);
+            w
         }
-    }
-    .clamp(u_floor, -1e-9);
-    let opts = SolveOptions {
-        x_tol: 1e-7,
-        f_tol: 1e-10,
-        max_iter: 100,
+        None => {
+            // Unknown u = ln(w / W), the liquid share of the water. f rises with u.
+            let mut f = |u: f64| ev.ln_aw(t_k, w_total * u.exp(), &mode) - ln_ice;
+            // Start from the neighbouring temperature's answer, extrapolated
+            // linearly when two are known; secant steps from there, with Brent on
+            // [1e-6 of the water, all of it] as the fallback.
+            let u_floor = (1e-6f64).ln();
+            let slope0 = if warm.slope > 0.0 {
+                warm.slope
+            } else {
+                -ln_ice
+            };
+            let x0 = match (warm.ln_liquid, warm.prev, warm.prev2) {
+                // Quadratic through the last three answers (Lagrange form).
+                (Some(u2), Some((t1, u1)), Some((t0, u0)))
+                    if warm.t_last != t1 && t1 != t0 && warm.t_last != t0 =>
+                {
+                    let t2 = warm.t_last;
+                    let l0 = (t_k - t1) * (t_k - t2) / ((t0 - t1) * (t0 - t2));
+                    let l1 = (t_k - t0) * (t_k - t2) / ((t1 - t0) * (t1 - t2));
+                    let l2 = (t_k - t0) * (t_k - t1) / ((t2 - t0) * (t2 - t1));
+                    u0 * l0 + u1 * l1 + u2 * l2
+                }
+                (Some(u1), Some((t0, u0)), _) if warm.t_last != t0 => {
+                    u1 + (u1 - u0) * (t_k - warm.t_last) / (warm.t_last - t0)
+                }
+                (Some(u1), _, _) => u1,
+                // Dilute-solution estimate: ln a_w scales with 1/w, so the liquid
+                // share is ln a_w(all liquid) / ln a_w,ice(T).
+                _ => {
+                    let y_all = match warm.known_freezing_k {
+                        Some(tf) => water::ice_equilibrium_ln_aw(tf),
+                        None => f_all_liquid + ln_ice,
+                    };
+                    if y_all < 0.0 && ln_ice < 0.0 {
+                        (y_all / ln_ice).ln()
+                    } else {
+                        -0.7
+                    }
+                }
+            }
+            .clamp(u_floor, -1e-9);
+            let opts = SolveOptions {
+                x_tol: 1e-7,
+                f_tol: 1e-10,
+                max_iter: 100,
+            };
+            let (root, slope) =
+                solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| {
+                    ModelError::Solver {
+                        property: "ice fraction",
+                        source: e,
+                    }
+                })?;
+            if let Some(u1) = warm.ln_liquid {
+                warm.prev2 = warm.prev;
+                warm.prev = Some((warm.t_last, u1));
+            }
+            warm.t_last = t_k;
+            warm.ln_liquid = Some(root.x);
+            warm.slope = slope;
+            w_total * root.x.exp()
+        }
     };
-    let (root, slope) =
-        solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| ModelError::Solver {
-            property: "ice fraction",
-            source: e,
-        })?;
-    if let Some(u1) = warm.ln_liquid {
-        warm.prev2 = warm.prev;
-        warm.prev = Some((warm.t_last, u1));
-    }
-    warm.t_last = t_k;
-    warm.ln_liquid = Some(root.x);
-    warm.slope = slope;
-    let liquid = w_total * root.x.exp();
     // Crystal hydrate formed above the eutectic binds water too.
     ev.dissolve(t_k, liquid, &mode);
     let bound = ev.hydrate_water_since(before);
@@ -568,9 +592,9 @@ pub fn evaluate(
     let dissolved = ev.last_dissolved().to_vec();
     let aw = ln_aw.exp();
     let p_sat = water::p_sat_liquid(t);
-    let mut warnings = diagnose(&mut ev, t, w, &dissolved);
+    let mut warnings = diagnose(&mut ev, t, w, &dissolved, ln_aw);
     let shares = if wanted.contributions {
-        ev.contributions(t, w, &dissolved)
+        ev.contributions_of(ln_aw, w, &dissolved)
     } else {
         vec![0.0; dissolved.len()]
     };
@@ -708,9 +732,15 @@ fn supersaturation_warnings(
 }
 
 /// Validity and solubility warnings for one evaluation.
-fn diagnose(ev: &mut Evaluator<'_>, t_k: f64, w: f64, dissolved: &[f64]) -> Vec<Warning> {
+fn diagnose(
+    ev: &mut Evaluator<'_>,
+    t_k: f64,
+    w: f64,
+    dissolved: &[f64],
+    ln_aw: f64,
+) -> Vec<Warning> {
     let lib = ev.library();
-    let ln_aw_total = ev.ln_aw_of(t_k, w, dissolved);
+    let ln_aw_total = ln_aw;
     let model = ev.model();
     let t_c = t_k - T_ZERO_C;
     let mut out = Vec::new();
@@ -997,6 +1027,37 @@ mod tests {
                     | (BinaryKind::Ideal, Binary::Ideal { .. })
             );
             assert!(same, "{}", lib.solutes[i].id());
+        }
+    }
+
+    #[test]
+    fn zsr_liquid_for_ice_equilibrium_is_a_root() {
+        use crate::formula::{Formula, Line};
+        let lib = Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        let f = Formula::new(
+            "mix",
+            vec![
+                Line::grams("water", 500.0),
+                Line::grams("sucrose", 150.0),
+                Line::grams("glycerol", 30.0),
+                Line::grams("sodium_chloride", 25.0),
+                Line::grams("potassium_chloride", 60.0),
+                Line::grams("lactose", 30.0),
+            ],
+        );
+        let comp = f.composition(&lib).unwrap_or_else(|e| panic!("{e}"));
+        let mut ev = Evaluator::new(&lib, &comp, ModelId::Zsr);
+        ev.ln_aw(298.15, comp.water_kg, &CapMode::Equilibrium);
+        let before = ev.last_dissolved().to_vec();
+        let mode = CapMode::Freezing { before: &before };
+        for t_c in [-5.0, -10.0, -20.0, -30.0] {
+            let t = T_ZERO_C + t_c;
+            let y = water::ice_equilibrium_ln_aw(t);
+            let w = ev
+                .zsr_water_for(t, y, &mode)
+                .unwrap_or_else(|| panic!("no liquid at {t_c}"));
+            let back = ev.ln_aw(t, w, &mode);
+            assert!((back - y).abs() < 1e-9, "{t_c} °C: {back} vs {y}");
         }
     }
 

@@ -618,8 +618,9 @@ impl<'l> Evaluator<'l> {
                 self.zsr_m[i] += lam * (dy - r) / db;
             }
             // Newton converges quadratically: from residuals this small a
-            // full step leaves an error of order their square (< 1e-16).
-            if lam == 1.0 && g.abs() < 1e-9 && worst_r < 1e-9 {
+            // full step leaves an error of order their square (~1e-10 in
+            // ln a_w, far below any measurement).
+            if lam == 1.0 && g.abs() < 1e-5 && worst_r < 1e-5 {
                 self.scratch.clear();
                 self.zsr_warm = Some(y);
                 return y;
@@ -711,11 +712,93 @@ impl<'l> Evaluator<'l> {
         y
     }
 
+    /// ZSR turned around: the liquid water (kg) in which the solutes
+    /// available under `mode` give ln a_w = `y` at `t_k`. With every binary
+    /// molality m_i°(y) known, Σ n_i / (w m_i°) = 1 gives w directly;
+    /// solutes that crystallise are handled by an active set (those at
+    /// saturation contribute s_i w / m_i°). `None` when no amount of liquid
+    /// reaches `y` (past a eutectic) or a binary cannot reach `y`.
+    pub fn zsr_water_for(&mut self, t_k: f64, y: f64, mode: &CapMode<'_>) -> Option<f64> {
+        self.set_t(t_k);
+        let n = self.comps.len();
+        let mut m0 = vec![0.0; n];
+        let mut avail = vec![0.0; n];
+        for i in 0..n {
+            let c = &self.comps[i];
+            avail[i] = match mode {
+                CapMode::Equilibrium | CapMode::Unlimited => c.mol,
+                CapMode::Freezing { before } => before[i],
+            };
+            if avail[i] <= 0.0 {
+                continue;
+            }
+            let guess = self.zsr_m[i];
+            let (m, _) = self.binaries[i].molality_at(y, guess, 1.0e4)?;
+            if m <= 0.0 {
+                return None;
+            }
+            m0[i] = m;
+        }
+        // Which solutes may be capped by solubility at this temperature.
+        let cappable = |c: &Component| match mode {
+            CapMode::Unlimited => false,
+            CapMode::Freezing { .. } => !c.stays_dissolved_on_freezing,
+            CapMode::Equilibrium => true,
+        };
+        let mut capped = vec![false; n];
+        let mut w = 0.0;
+        for _ in 0..=n {
+            let mut num = 0.0;
+            let mut den = 1.0;
+            for i in 0..n {
+                if avail[i] <= 0.0 {
+                    continue;
+                }
+                if capped[i] {
+                    den -= self.solubility[i] / m0[i];
+                } else {
+                    num += avail[i] / m0[i];
+                }
+            }
+            if den <= 0.0 {
+                return None;
+            }
+            w = num / den;
+            let mut changed = false;
+            for i in 0..n {
+                if avail[i] <= 0.0 || !cappable(&self.comps[i]) || !self.solubility[i].is_finite() {
+                    continue;
+                }
+                let over = avail[i] > self.solubility[i] * w;
+                if over != capped[i] {
+                    capped[i] = over;
+                    changed = true;
+                }
+            }
+            if !changed {
+                break;
+            }
+        }
+        for i in 0..n {
+            if avail[i] > 0.0 {
+                self.zsr_m[i] = m0[i];
+            }
+        }
+        self.zsr_warm = Some(y);
+        (w.is_finite() && w > 0.0).then_some(w)
+    }
+
     /// Shares of each component in the lowering of ln a_w, apportioned by
     /// each solute's binary effect at its molality (they sum to the model's
     /// ln a_w). Outside the hot path.
     pub fn contributions(&mut self, t_k: f64, water_kg: f64, dissolved: &[f64]) -> Vec<f64> {
         let total = self.ln_aw_of(t_k, water_kg, dissolved);
+        self.contributions_of(total, water_kg, dissolved)
+    }
+
+    /// As [`Evaluator::contributions`], with ln a_w already known (the
+    /// binaries must be at the same temperature).
+    pub fn contributions_of(&self, total: f64, water_kg: f64, dissolved: &[f64]) -> Vec<f64> {
         let parts: Vec<f64> = self
             .binaries
             .iter()
