@@ -4,6 +4,28 @@
 use egui::RichText;
 use egui_plot::{HoverPosition, Legend, Line, Plot, PlotPoint, PlotPoints, Points, VLine};
 
+/// A y axis whose tick labels stay readable on a short plot (labels down
+/// to 14 points apart, as many decimals as the grid step needs).
+fn y_axis<'a>(label: impl Into<egui::WidgetText>) -> Vec<egui_plot::AxisHints<'a>> {
+    vec![
+        egui_plot::AxisHints::new_y()
+            .label(label)
+            .formatter(tick)
+            .label_spacing(14.0..=24.0)
+            .min_thickness(44.0),
+    ]
+}
+
+/// Axis tick text with as many decimals as the grid step needs.
+fn tick(m: egui_plot::GridMark, _range: &std::ops::RangeInclusive<f64>) -> String {
+    let d = if m.step_size > 0.0 {
+        (-m.step_size.log10()).ceil().max(0.0) as usize
+    } else {
+        0
+    };
+    format!("{:.*}", d.min(6), m.value)
+}
+
 /// Hover read-out: the nearest series' name and the point under the cursor.
 fn hover(h: &HoverPosition<'_>, fmt: impl Fn(&PlotPoint) -> String) -> Option<String> {
     match h {
@@ -278,7 +300,7 @@ impl ChartsPanel {
                 Plot::new("sweep-plot")
                     .height(h)
                     .x_axis_label(format!("{name}, g"))
-                    .y_axis_label(ylabel)
+                    .custom_y_axes(y_axis(ylabel))
                     .legend(Legend::default())
                     .label_formatter(|h| hover(h, |v| format!("{:.2} g: {:.4}", v.x, v.y)))
                     .show(ui, |pu| {
@@ -300,7 +322,7 @@ impl ChartsPanel {
                 Plot::new("per-gram-plot")
                     .height(h)
                     .x_axis_label("grams added")
-                    .y_axis_label("a_w lowering (a_w now − a_w after)")
+                    .custom_y_axes(y_axis("a_w lowering, Δa_w"))
                     .legend(Legend::default())
                     .label_formatter(|h| hover(h, |v| format!("+{:.2} g: Δa_w {:.4}", v.x, v.y)))
                     .show(ui, |pu| {
@@ -344,7 +366,7 @@ impl ChartsPanel {
                 Plot::new("freezing-plot")
                     .height(h)
                     .x_axis_label("temperature, °C")
-                    .y_axis_label("ice, fraction of the water")
+                    .custom_y_axes(y_axis("ice, fraction of the water"))
                     .include_y(0.0)
                     .include_y(1.0)
                     .legend(Legend::default())
@@ -379,7 +401,7 @@ impl ChartsPanel {
                 Plot::new("vp-plot")
                     .height(h)
                     .x_axis_label("temperature, °C")
-                    .y_axis_label("vapour pressure, kPa")
+                    .custom_y_axes(y_axis("vapour pressure, kPa"))
                     .legend(Legend::default())
                     .label_formatter(|h| hover(h, |v| format!("{:.1} °C: {:.3} kPa", v.x, v.y)))
                     .show(ui, |pu| {

@@ -208,9 +208,17 @@ fn scale(ui: &mut Ui, lines: &[&ThresholdRecord], aw: Option<f64>, band: Option<
     if let Some(a) = aw {
         let x = x_of(a);
         p.circle_filled(Pos2::new(x, bar.center().y), 6.0, theme::ACCENT);
+        // Keep the label inside the scale near its ends.
+        let align = if x > rect.right() - 70.0 {
+            egui::Align2::RIGHT_TOP
+        } else if x < rect.left() + 70.0 {
+            egui::Align2::LEFT_TOP
+        } else {
+            egui::Align2::CENTER_TOP
+        };
         p.text(
             Pos2::new(x, rect.top() + 2.0),
-            egui::Align2::CENTER_TOP,
+            align,
             format!("this formula {a:.3}"),
             FontId::proportional(11.0),
             theme::ACCENT,
