@@ -1013,7 +1013,7 @@ impl eframe::App for WorkbenchApp {
         }
         self.ui_root(ui);
         // COLLIGO_FRAME_STATS=1 prints frame times now and then (for measuring).
-        if std::env::var_os("COLLIGO_FRAME_STATS").is_some() && self.stats.frames % 100 == 0 {
+        if std::env::var_os("COLLIGO_FRAME_STATS").is_some() && self.stats.frames.is_multiple_of(100) {
             eprintln!("{}", self.stats.report());
         }
     }
