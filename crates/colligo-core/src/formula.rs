@@ -62,6 +62,19 @@ pub struct Resolved {
     pub line_ingredient: Vec<usize>,
 }
 
+impl Resolved {
+    /// Mass of the first line of ingredient `id`, kg (0 when absent) — the
+    /// line a sweep or a goal seek varies.
+    pub fn kg_of(&self, formula: &Formula, id: &str) -> f64 {
+        formula
+            .lines
+            .iter()
+            .zip(&self.line_kg)
+            .find(|(l, _)| l.ingredient == id)
+            .map_or(0.0, |(_, kg)| *kg)
+    }
+}
+
 impl Formula {
     /// A formula from lines.
     pub fn new(name: &str, lines: Vec<Line>) -> Self {

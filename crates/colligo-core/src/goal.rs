@@ -246,12 +246,7 @@ pub fn goal_seek(
     };
     let resolved = formula.resolve(lib)?;
     let batch = resolved.composition.total_kg().max(1e-3);
-    let current = formula
-        .lines
-        .iter()
-        .zip(&resolved.line_kg)
-        .find(|(l, _)| l.ingredient == ingredient)
-        .map_or(0.0, |(_, kg)| *kg);
+    let current = resolved.kg_of(formula, ingredient);
     // Scan amounts: 0, then geometric steps up to 100× the batch.
     let mut grid = vec![0.0];
     let mut a = (batch * 1e-3).max(1e-6);

@@ -840,65 +840,54 @@ fn binary_validity(
     if !significant && !matches!(kind, BinaryKind::Ideal) {
         return;
     }
-    match kind {
+    // The concentration and temperature ranges of the data behind the
+    // parameters this solute's binary uses.
+    let (concentration, t_range) = match kind {
         BinaryKind::Pitzer(pair) => {
             let p = &lib.pitzer.pairs[pair];
-            if m > p.max_molality * (1.0 + 1e-9) {
-                out.push(Warning::BeyondValidatedConcentration {
-                    solute: id.clone(),
-                    model,
-                    value: m,
-                    max: p.max_molality,
-                    unit: "mol/kg".into(),
-                    basis: basis.into(),
-                });
-            }
-            if t_c < p.t_range_c.0 - 0.5 || t_c > p.t_range_c.1 + 0.5 {
-                out.push(Warning::BeyondValidatedTemperature {
-                    solute: id,
-                    model,
-                    t_c,
-                    range_c: p.t_range_c,
-                });
-            }
+            (Some((m, p.max_molality, "mol/kg")), Some(p.t_range_c))
         }
-        BinaryKind::Norrish => {
-            if let Some(n) = &s.record.norrish {
-                let x = m * M_W / (1.0 + m * M_W);
-                if x > n.max_mole_fraction * (1.0 + 1e-9) {
-                    out.push(Warning::BeyondValidatedConcentration {
-                        solute: id.clone(),
-                        model,
-                        value: x,
-                        max: n.max_mole_fraction,
-                        unit: "mole fraction".into(),
-                        basis: basis.into(),
-                    });
-                }
-                if t_c < n.t_range_c.0 - 0.5 || t_c > n.t_range_c.1 + 0.5 {
-                    out.push(Warning::BeyondValidatedTemperature {
-                        solute: id,
-                        model,
-                        t_c,
-                        range_c: n.t_range_c,
-                    });
-                }
-            }
+        BinaryKind::Norrish => match &s.record.norrish {
+            Some(n) => (
+                Some((
+                    m * M_W / (1.0 + m * M_W),
+                    n.max_mole_fraction,
+                    "mole fraction",
+                )),
+                Some(n.t_range_c),
+            ),
+            None => (None, None),
+        },
+        BinaryKind::Wilson => match &s.record.kind {
+            SoluteKind::Volatile(v) => (None, Some(v.wilson.t_range_c)),
+            _ => (None, None),
+        },
+        BinaryKind::Ideal => {
+            out.push(Warning::NoNonIdealityData { solute: id, model });
+            return;
         }
-        BinaryKind::Wilson => {
-            if let SoluteKind::Volatile(v) = &s.record.kind {
-                let r = v.wilson.t_range_c;
-                if t_c < r.0 - 0.5 || t_c > r.1 + 0.5 {
-                    out.push(Warning::BeyondValidatedTemperature {
-                        solute: id,
-                        model,
-                        t_c,
-                        range_c: r,
-                    });
-                }
-            }
-        }
-        BinaryKind::Ideal => out.push(Warning::NoNonIdealityData { solute: id, model }),
+    };
+    if let Some((value, max, unit)) = concentration
+        && value > max * (1.0 + 1e-9)
+    {
+        out.push(Warning::BeyondValidatedConcentration {
+            solute: id.clone(),
+            model,
+            value,
+            max,
+            unit: unit.into(),
+            basis: basis.into(),
+        });
+    }
+    if let Some(range_c) = t_range
+        && (t_c < range_c.0 - 0.5 || t_c > range_c.1 + 0.5)
+    {
+        out.push(Warning::BeyondValidatedTemperature {
+            solute: id,
+            model,
+            t_c,
+            range_c,
+        });
     }
 }
 

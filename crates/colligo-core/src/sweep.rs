@@ -275,14 +275,7 @@ pub fn sensitivities(
     step_g: f64,
 ) -> Result<Vec<Sensitivity>, SweepError> {
     let resolved = formula.resolve(lib)?;
-    let base_kg = |id: &str| -> f64 {
-        formula
-            .lines
-            .iter()
-            .zip(&resolved.line_kg)
-            .find(|(l, _)| l.ingredient == id)
-            .map_or(0.0, |(_, kg)| *kg)
-    };
+    let base_kg = |id: &str| resolved.kg_of(formula, id);
     let wanted = Wanted {
         freezing_point: true,
         ..Wanted::WATER_ACTIVITY

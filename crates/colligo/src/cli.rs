@@ -97,6 +97,15 @@ impl Args {
         self.options.get(name).map(String::as_str)
     }
 
+    /// A required option's value.
+    ///
+    /// # Errors
+    /// When it was not given, with `hint` on how to give it.
+    pub fn require(&self, name: &str, hint: &str) -> Result<&str> {
+        self.get(name)
+            .ok_or_else(|| anyhow!("--{name} is required ({hint})"))
+    }
+
     /// Whether a switch was given.
     pub fn has(&self, name: &str) -> bool {
         self.switches.iter().any(|s| s == name)
@@ -107,8 +116,20 @@ impl Args {
     /// # Errors
     /// The first unknown option.
     pub fn only(&self, allowed: &[&str]) -> Result<()> {
+        self.only_job_and(allowed, false)
+    }
+
+    /// Fails on options that are neither [`JOB_OPTIONS`] nor in `extra`.
+    ///
+    /// # Errors
+    /// The first unknown option.
+    pub fn job_and(&self, extra: &[&str]) -> Result<()> {
+        self.only_job_and(extra, true)
+    }
+
+    fn only_job_and(&self, allowed: &[&str], job: bool) -> Result<()> {
         for k in self.options.keys() {
-            if !allowed.contains(&k.as_str()) {
+            if !(allowed.contains(&k.as_str()) || job && JOB_OPTIONS.contains(&k.as_str())) {
                 bail!("unknown option --{k} (see `colligo help`)");
             }
         }
@@ -136,6 +157,33 @@ pub fn run(sub: &str, rest: &[String], out: &mut dyn std::io::Write) -> Result<(
         }
         _ => bail!("unknown subcommand `{sub}`"),
     }
+}
+
+/// The options every formula subcommand takes (project variant, mix, conditions, model).
+pub const JOB_OPTIONS: [&str; 6] = [
+    "variant",
+    "mix",
+    "temperature",
+    "pressure",
+    "storage",
+    "model",
+];
+
+/// `--temperature`, `--pressure`, `--storage` onto `cond`.
+///
+/// # Errors
+/// Unreadable quantities.
+pub fn apply_conditions(args: &Args, cond: &mut Conditions) -> Result<()> {
+    if let Some(t) = args.get("temperature") {
+        cond.temperature_k = parse_temperature(t)?;
+    }
+    if let Some(p) = args.get("pressure") {
+        cond.pressure_pa = parse_pressure(p)?;
+    }
+    if let Some(t) = args.get("storage") {
+        cond.storage_temperature_k = parse_temperature(t)?;
+    }
+    Ok(())
 }
 
 /// The formula, conditions, model and library a subcommand works on.
@@ -204,15 +252,7 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
     } else if args.positional.is_empty() {
         bail!("give a project file or --mix \"water=100g, sucrose=50g\"");
     }
-    if let Some(t) = args.get("temperature") {
-        cond.temperature_k = parse_temperature(t)?;
-    }
-    if let Some(p) = args.get("pressure") {
-        cond.pressure_pa = parse_pressure(p)?;
-    }
-    if let Some(t) = args.get("storage") {
-        cond.storage_temperature_k = parse_temperature(t)?;
-    }
+    apply_conditions(args, &mut cond)?;
     if let Some(m) = args.get("model") {
         model = m.parse().map_err(|e: String| anyhow!(e))?;
     }
@@ -228,14 +268,7 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
 }
 
 fn eval(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
-    args.only(&[
-        "variant",
-        "mix",
-        "temperature",
-        "pressure",
-        "storage",
-        "model",
-    ])?;
+    args.job_and(&[])?;
     let j = job(base, args)?;
     let comp = j.formula.composition(&j.lib)?;
     let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
@@ -272,17 +305,7 @@ fn number(args: &Args, name: &str, default: f64) -> Result<f64> {
 }
 
 fn freeze(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
-    args.only(&[
-        "variant",
-        "mix",
-        "temperature",
-        "pressure",
-        "storage",
-        "model",
-        "from",
-        "to",
-        "step",
-    ])?;
+    args.job_and(&["from", "to", "step"])?;
     let j = job(base, args)?;
     let from = number(args, "from", -1.0)?;
     let to = number(args, "to", -30.0)?;
@@ -316,22 +339,9 @@ fn freeze(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<(
 }
 
 fn sweep_cmd(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
-    args.only(&[
-        "variant",
-        "mix",
-        "temperature",
-        "pressure",
-        "storage",
-        "model",
-        "ingredient",
-        "from",
-        "to",
-        "steps",
-    ])?;
+    args.job_and(&["ingredient", "from", "to", "steps"])?;
     let j = job(base, args)?;
-    let id = args
-        .get("ingredient")
-        .ok_or_else(|| anyhow!("--ingredient ID is required"))?;
+    let id = args.require("ingredient", "the ingredient id to vary")?;
     j.lib.ingredient_or_suggest(id)?;
     let from = args.get("from").map(parse_amount).transpose()?;
     let to = args
@@ -483,15 +493,7 @@ fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()
         .ok_or_else(|| anyhow!("give the CSV file of formulas"))?;
     let text = std::fs::read_to_string(path).with_context(|| format!("reading {path}"))?;
     let mut cond = Conditions::default();
-    if let Some(t) = args.get("temperature") {
-        cond.temperature_k = parse_temperature(t)?;
-    }
-    if let Some(p) = args.get("pressure") {
-        cond.pressure_pa = parse_pressure(p)?;
-    }
-    if let Some(t) = args.get("storage") {
-        cond.storage_temperature_k = parse_temperature(t)?;
-    }
+    apply_conditions(args, &mut cond)?;
     let model: ModelId = args
         .get("model")
         .unwrap_or("auto")

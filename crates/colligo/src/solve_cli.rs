@@ -14,20 +14,9 @@ use crate::report;
 /// # Errors
 /// Bad arguments, or a target that cannot be reached (the error says why).
 pub fn solve(base: &Library, args: &Args, out: &mut dyn Write) -> Result<()> {
-    args.only(&[
-        "variant",
-        "mix",
-        "temperature",
-        "pressure",
-        "storage",
-        "model",
-        "ingredient",
-        "target",
-    ])?;
+    args.job_and(&["ingredient", "target"])?;
     let j = job(base, args)?;
-    let id = args
-        .get("ingredient")
-        .ok_or_else(|| anyhow!("--ingredient ID is required"))?;
+    let id = args.require("ingredient", "the ingredient id to vary")?;
     let target: Target = args
         .get("target")
         .ok_or_else(|| anyhow!("--target is required, e.g. --target water_activity=0.85"))?

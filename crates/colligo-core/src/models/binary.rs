@@ -184,20 +184,7 @@ pub fn best_binary(lib: &Library, solute: usize, t_k: f64) -> Binary {
     if let Some(v) = s.volatile() {
         return Binary::Wilson(WilsonBinary::new(v, t_k));
     }
-    if let Some(pair) = s.pair {
-        let (c, nc) = s
-            .ions
-            .iter()
-            .copied()
-            .find(|(i, _)| lib.ions[*i].z > 0.0)
-            .unwrap_or((0, 1.0));
-        let (a, na) = s
-            .ions
-            .iter()
-            .copied()
-            .find(|(i, _)| lib.ions[*i].z < 0.0)
-            .unwrap_or((0, 1.0));
-        let mut b = PitzerBinary::new(lib, pair, c, a, nc, na);
+    if let Some(mut b) = PitzerBinary::for_solute(lib, solute) {
         b.set_t(lib, t_k);
         return Binary::Pitzer(b);
     }

@@ -818,24 +818,26 @@ impl<'l> Evaluator<'l> {
         parts.iter().map(|p| p / sum * total).collect()
     }
 
+    /// Moles of water one mole of component `c` binds when it crystallises.
+    fn hydrate_water_of(&self, c: &Component) -> f64 {
+        match self.lib.solutes[c.solute]
+            .record
+            .solubility
+            .as_ref()
+            .map(|s| &s.on_freezing)
+        {
+            Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
+            _ => 0.0,
+        }
+    }
+
     /// Water bound as crystal hydrate, kg, when `before` was available and
     /// the last [`Evaluator::dissolve`] left `last_dissolved` in solution.
     pub fn hydrate_water_since(&self, before: &[f64]) -> f64 {
         self.comps
             .iter()
             .zip(before.iter().zip(&self.dissolved))
-            .map(|(c, (b, d))| {
-                let h = match self.lib.solutes[c.solute]
-                    .record
-                    .solubility
-                    .as_ref()
-                    .map(|s| &s.on_freezing)
-                {
-                    Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
-                    _ => 0.0,
-                };
-                h * (b - d).max(0.0) * M_W
-            })
+            .map(|(c, (b, d))| self.hydrate_water_of(c) * (b - d).max(0.0) * M_W)
             .sum()
     }
 
@@ -844,18 +846,7 @@ impl<'l> Evaluator<'l> {
         self.comps
             .iter()
             .zip(undissolved)
-            .map(|(c, u)| {
-                let h = match self.lib.solutes[c.solute]
-                    .record
-                    .solubility
-                    .as_ref()
-                    .map(|s| &s.on_freezing)
-                {
-                    Some(FreezeBehaviour::Crystallises { hydrate_water }) => *hydrate_water,
-                    _ => 0.0,
-                };
-                h * u * M_W
-            })
+            .map(|(c, u)| self.hydrate_water_of(c) * u * M_W)
             .sum()
     }
 

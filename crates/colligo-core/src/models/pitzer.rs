@@ -279,6 +279,16 @@ impl PitzerBinary {
         }
     }
 
+    /// The binary of a library salt with one cation and one anion that
+    /// has Pitzer parameters (`None` otherwise). Call [`Self::set_t`] before use.
+    pub fn for_solute(lib: &Library, solute: usize) -> Option<Self> {
+        let s = &lib.solutes[solute];
+        let pair = s.pair?;
+        let (c, nc) = s.ions.iter().copied().find(|(i, _)| lib.ions[*i].z > 0.0)?;
+        let (a, na) = s.ions.iter().copied().find(|(i, _)| lib.ions[*i].z < 0.0)?;
+        Some(Self::new(lib, pair, c, a, nc, na))
+    }
+
     /// Re-evaluates the temperature-dependent parameters when `t_k` changed.
     pub fn set_t(&mut self, lib: &Library, t_k: f64) {
         if self.t != t_k {
@@ -584,21 +594,9 @@ mod tests {
             "sodium_sulfate",
             "magnesium_chloride",
         ] {
-            let s = &lib.solutes[lib.solute(id).unwrap_or(0)];
-            let Some(pair) = s.pair else { continue };
-            let (c, nc) = s
-                .ions
-                .iter()
-                .copied()
-                .find(|(i, _)| lib.ions[*i].z > 0.0)
-                .unwrap_or((0, 1.0));
-            let (a, na) = s
-                .ions
-                .iter()
-                .copied()
-                .find(|(i, _)| lib.ions[*i].z < 0.0)
-                .unwrap_or((0, 1.0));
-            let mut b = PitzerBinary::new(&lib, pair, c, a, nc, na);
+            let Some(mut b) = PitzerBinary::for_solute(&lib, lib.solute(id).unwrap_or(0)) else {
+                continue;
+            };
             b.set_t(&lib, 290.0);
             for m in [0.01, 0.3, 1.0, 3.0] {
                 let h = 1e-6 * m;

@@ -450,14 +450,7 @@ fn compute_chart(req: &Request) -> ChartData {
                 Ok(r) => r,
                 Err(e) => return ChartData::Failed(e.to_string()),
             };
-            let base_kg = |id: &str| {
-                formula
-                    .lines
-                    .iter()
-                    .zip(&resolved.line_kg)
-                    .find(|(l, _)| l.ingredient == id)
-                    .map_or(0.0, |(_, kg)| *kg)
-            };
+            let base_kg = |id: &str| resolved.kg_of(formula, id);
             let added = sweep::linspace(0.0, up_to_g / 1000.0, 41);
             let jobs: Vec<(String, Vec<f64>)> = ids
                 .iter()

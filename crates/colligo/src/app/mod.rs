@@ -492,33 +492,32 @@ impl WorkbenchApp {
         }
     }
 
+    /// Where new files go by default: beside the project, else beside the
+    /// most recent file, else the current directory.
+    fn working_dir(&self) -> PathBuf {
+        self.doc
+            .path
+            .as_ref()
+            .or(self.prefs.recent.first())
+            .and_then(|p| p.parent().map(Path::to_path_buf))
+            .or_else(|| std::env::current_dir().ok())
+            .unwrap_or_default()
+    }
+
     fn save_as_dialog(&mut self) {
         let suggestion = match &self.doc.path {
             Some(p) => p.display().to_string(),
-            None => {
-                let dir = self
-                    .prefs
-                    .recent
-                    .first()
-                    .and_then(|p| p.parent().map(Path::to_path_buf))
-                    .or_else(|| std::env::current_dir().ok())
-                    .unwrap_or_default();
-                dir.join(files::file_name_for(&self.doc.project.name))
-                    .display()
-                    .to_string()
-            }
+            None => self
+                .working_dir()
+                .join(files::file_name_for(&self.doc.project.name))
+                .display()
+                .to_string(),
         };
         self.modal = Some(Modal::Path(PathDialog::new(PathPurpose::Save, suggestion)));
     }
 
     fn library_dialog(&mut self, purpose: PathPurpose) {
-        let dir = self
-            .doc
-            .path
-            .as_ref()
-            .and_then(|p| p.parent().map(Path::to_path_buf))
-            .or_else(|| std::env::current_dir().ok())
-            .unwrap_or_default();
+        let dir = self.working_dir();
         let start = match purpose {
             PathPurpose::ExportLibrary => dir.join("my_ingredients.ron").display().to_string(),
             _ => format!("{}/", dir.display()),
@@ -527,13 +526,7 @@ impl WorkbenchApp {
     }
 
     fn export_chart_dialog(&mut self) {
-        let dir = self
-            .doc
-            .path
-            .as_ref()
-            .and_then(|p| p.parent().map(Path::to_path_buf))
-            .or_else(|| std::env::current_dir().ok())
-            .unwrap_or_default();
+        let dir = self.working_dir();
         let name = format!(
             "{}_{:?}.csv",
             files::file_name_for(&self.doc.project.name).trim_end_matches(".ron"),
@@ -1013,7 +1006,9 @@ impl eframe::App for WorkbenchApp {
         }
         self.ui_root(ui);
         // COLLIGO_FRAME_STATS=1 prints frame times now and then (for measuring).
-        if std::env::var_os("COLLIGO_FRAME_STATS").is_some() && self.stats.frames.is_multiple_of(100) {
+        if std::env::var_os("COLLIGO_FRAME_STATS").is_some()
+            && self.stats.frames.is_multiple_of(100)
+        {
             eprintln!("{}", self.stats.report());
         }
     }

@@ -94,12 +94,7 @@ impl ChartsPanel {
         Some(match self.tab {
             ChartTab::Sweep => {
                 let id = self.sweep_id(doc)?;
-                let cur = f
-                    .lines
-                    .iter()
-                    .zip(&resolved.line_kg)
-                    .find(|(l, _)| l.ingredient == id)
-                    .map_or(0.0, |(_, kg)| kg * 1000.0);
+                let cur = resolved.kg_of(f, &id) * 1000.0;
                 let (from_g, to_g) = if id == "water" {
                     (0.5 * cur, 1.5 * cur.max(1.0))
                 } else {
@@ -282,14 +277,15 @@ impl ChartsPanel {
                     .map(|(x, y)| [x * 1000.0, *y])
                     .collect();
                 let ylabel = self.sweep_property.label();
-                let cur_g = eval.and_then(|e| e.resolved.as_ref().ok()).and_then(|r| {
-                    doc.formula()
-                        .lines
-                        .iter()
-                        .zip(&r.line_kg)
-                        .find(|(l, _)| &l.ingredient == ingredient)
-                        .map(|(_, kg)| kg * 1000.0)
-                });
+                let cur_g = eval
+                    .and_then(|e| e.resolved.as_ref().ok())
+                    .filter(|_| {
+                        doc.formula()
+                            .lines
+                            .iter()
+                            .any(|l| &l.ingredient == ingredient)
+                    })
+                    .map(|r| r.kg_of(doc.formula(), ingredient) * 1000.0);
                 let cur_y = eval.and_then(|e| e.props.as_ref().ok()).and_then(|p| {
                     match self.sweep_property {
                         SweepProperty::WaterActivity => Some(p.water_activity),

@@ -138,16 +138,7 @@ impl GoalDialog {
         let current_g = doc
             .formula()
             .resolve(&doc.lib)
-            .ok()
-            .and_then(|r| {
-                doc.formula()
-                    .lines
-                    .iter()
-                    .zip(&r.line_kg)
-                    .find(|(l, _)| l.ingredient == self.ingredient)
-                    .map(|(_, kg)| kg * 1000.0)
-            })
-            .unwrap_or(0.0);
+            .map_or(0.0, |r| r.kg_of(doc.formula(), &self.ingredient) * 1000.0);
         match goal_seek(
             &doc.lib,
             doc.formula(),
