@@ -756,3 +756,25 @@ fn chart_data_exports_to_csv() {
         1 + h.state().doc.project.variants.len()
     );
 }
+
+#[test]
+fn chosen_units_carry_over_to_new_projects() {
+    let mut h = harness("unit-prefs");
+    h.get_by_label("Temperature unit").click();
+    h.run();
+    h.get_by_label("K").click();
+    h.run();
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Command::NewProject);
+    h.run();
+    if h.query_by_label("Discard changes").is_some() {
+        h.get_by_label("Discard changes").click();
+        h.run();
+    }
+    assert_eq!(h.state().doc.project.name, "Untitled");
+    assert_eq!(
+        h.state().doc.project.units.temperature,
+        TemperatureUnit::Kelvin
+    );
+    assert_eq!(h.state().prefs.units.temperature, TemperatureUnit::Kelvin);
+}

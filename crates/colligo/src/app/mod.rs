@@ -423,7 +423,11 @@ impl WorkbenchApp {
         }
         match cmd {
             Command::NewProject => {
-                self.doc = Document::new(self.base.clone(), Project::default(), None);
+                let project = Project {
+                    units: self.prefs.units,
+                    ..Project::default()
+                };
+                self.doc = Document::new(self.base.clone(), project, None);
                 self.say("New project", false);
             }
             Command::Open => {
@@ -459,7 +463,16 @@ impl WorkbenchApp {
                 ctx.send_viewport_cmd(ViewportCommand::Close);
             }
             other => match apply_edit(&mut self.doc, &other) {
-                Ok(true) => self.last_change = time,
+                Ok(true) => {
+                    self.last_change = time;
+                    if matches!(
+                        other,
+                        Command::SetTemperatureUnit(_) | Command::SetPressureUnit(_)
+                    ) {
+                        // Remembered for new projects too.
+                        self.prefs.units = self.doc.project.units;
+                    }
+                }
                 Ok(false) => {}
                 Err(e) => self.say(e, true),
             },

@@ -40,6 +40,8 @@ pub struct Prefs {
     pub chart_height: f32,
     /// Width of the results column, points.
     pub results_width: f32,
+    /// Units for new projects (the last ones chosen).
+    pub units: colligo_core::project::UnitPrefs,
 }
 
 impl Default for Prefs {
@@ -49,6 +51,7 @@ impl Default for Prefs {
             chart_tab: ChartTab::Sweep,
             chart_height: 300.0,
             results_width: 380.0,
+            units: colligo_core::project::UnitPrefs::default(),
         }
     }
 }
