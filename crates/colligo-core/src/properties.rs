@@ -770,6 +770,16 @@ fn diagnose(
             }
         }
         let m = dissolved[i] / w;
+        if let SoluteKind::Volatile(v) = &s.record.kind
+            && c.mol > 0.0
+            && t_c < v.wilson.partial_pressure_t_min_c - 0.5
+        {
+            out.push(Warning::CosolventPressureUnreliable {
+                solute: id.clone(),
+                t_c,
+                t_min_c: v.wilson.partial_pressure_t_min_c,
+            });
+        }
         // Where each binary is used, and whether the solute matters enough
         // for its parameters' range to matter (≥ 5 % of the result).
         let (m_used, basis, significant) = match model {
@@ -859,7 +869,14 @@ fn binary_validity(
             None => (None, None),
         },
         BinaryKind::Wilson => match &s.record.kind {
-            SoluteKind::Volatile(v) => (None, Some(v.wilson.t_range_c)),
+            SoluteKind::Volatile(v) => (
+                Some((
+                    m * s.molar_mass / (1.0 + m * s.molar_mass),
+                    v.wilson.max_mass_fraction,
+                    "mass fraction (salt-free)",
+                )),
+                Some(v.wilson.t_range_c),
+            ),
             _ => (None, None),
         },
         BinaryKind::Ideal => {
@@ -1003,6 +1020,42 @@ pub fn freezing_curve(
 mod tests {
     use super::*;
     use crate::models::binary::{Binary, best_binary};
+
+    /// Ethanol's Wilson fit is checked to 40 % (salt-free mass fraction) and
+    /// its own partial pressure from 10 °C (the limits in its record, from
+    /// the fit residuals quoted there); results beyond either say so.
+    #[test]
+    fn ethanol_beyond_its_fit_is_flagged() {
+        let lib = Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        let e = lib.solute("ethanol").unwrap_or_else(|| panic!("ethanol"));
+        let mm = lib.solutes[e].molar_mass;
+        let run = |ethanol_g: f64, t_c: f64| {
+            let mut c = Composition::new();
+            c.add_water((100.0 - ethanol_g) / 1000.0);
+            c.add_solute(e, ethanol_g / 1000.0, mm);
+            let cond = Conditions {
+                temperature_k: T_ZERO_C + t_c,
+                ..Conditions::default()
+            };
+            evaluate(&lib, &c, ModelId::Auto, &cond, Wanted::WATER_ACTIVITY)
+                .unwrap_or_else(|err| panic!("{err}"))
+                .warnings
+        };
+        let beyond = |w: &[Warning]| {
+            w.iter()
+                .any(|w| matches!(w, Warning::BeyondValidatedConcentration { solute, .. } if solute == "ethanol"))
+        };
+        let pressure = |w: &[Warning]| {
+            w.iter()
+                .any(|w| matches!(w, Warning::CosolventPressureUnreliable { .. }))
+        };
+        let ok = run(39.9, 25.0);
+        assert!(!beyond(&ok) && !pressure(&ok), "{ok:?}");
+        let strong = run(45.0, 25.0);
+        assert!(beyond(&strong), "{strong:?}");
+        let cold = run(20.0, 4.0);
+        assert!(pressure(&cold) && !beyond(&cold), "{cold:?}");
+    }
 
     #[test]
     fn validity_checks_use_the_binary_the_models_use() {

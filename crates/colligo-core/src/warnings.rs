@@ -81,6 +81,16 @@ pub enum Warning {
         /// Model in use.
         model: ModelId,
     },
+    /// A volatile co-solvent's own partial pressure at a temperature where
+    /// its fit does not reproduce it.
+    CosolventPressureUnreliable {
+        /// Solute id.
+        solute: String,
+        /// Temperature, °C.
+        t_c: f64,
+        /// Lowest temperature at which the partial pressure is usable, °C.
+        t_min_c: f64,
+    },
     /// The ideal model on a concentrated solution.
     IdealConcentrated {
         /// Mole fraction of solute particles.
@@ -117,6 +127,7 @@ impl Warning {
                 | Warning::TreatedAsIdeal { .. }
                 | Warning::BeyondValidatedConcentration { .. }
                 | Warning::BeyondValidatedTemperature { .. }
+                | Warning::CosolventPressureUnreliable { .. }
                 | Warning::SolubilityExtrapolated { .. }
                 | Warning::IdealConcentrated { .. }
                 | Warning::VolatileByRoss { .. }
@@ -133,6 +144,7 @@ impl Warning {
             | Warning::BeyondValidatedConcentration { solute, .. }
             | Warning::BeyondValidatedTemperature { solute, .. }
             | Warning::VolatileByRoss { solute, .. }
+            | Warning::CosolventPressureUnreliable { solute, .. }
             | Warning::SupersaturatedOnFreezing { solute, .. } => Some(solute),
             _ => None,
         }
@@ -192,6 +204,14 @@ impl fmt::Display for Warning {
             Warning::VolatileByRoss { solute, model } => write!(
                 f,
                 "{solute} is volatile: its effect on water is combined by Ross's rule in the {model} model"
+            ),
+            Warning::CosolventPressureUnreliable {
+                solute,
+                t_c,
+                t_min_c,
+            } => write!(
+                f,
+                "{solute}: its own partial pressure at {t_c:.1} °C is outside what its Wilson fit reproduces (from {t_min_c:.0} °C); the water activity is still within the fit"
             ),
             Warning::IdealConcentrated {
                 solute_mole_fraction,

@@ -486,6 +486,16 @@ impl Library {
                     message,
                 })?;
             }
+            let w = &v.wilson;
+            let usable = (0.0..=1.0).contains(&w.max_mass_fraction)
+                && w.max_mass_fraction > 0.0
+                && w.partial_pressure_t_min_c.is_finite();
+            if !usable {
+                return Err(LibraryError::Invalid {
+                    id: rec.id.clone(),
+                    message: "wilson: max_mass_fraction must be in (0, 1] and partial_pressure_t_min_c finite".into(),
+                });
+            }
             if !user {
                 self.check_cite(&v.wilson.source, &rec.id)?;
                 self.check_cite(&v.antoine.source, &rec.id)?;

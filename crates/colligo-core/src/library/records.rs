@@ -241,6 +241,12 @@ pub struct WilsonRecord {
     pub v_water_cm3_per_mol: f64,
     /// Temperature range of the fitted data, °C.
     pub t_range_c: (f64, f64),
+    /// Highest salt-free mass fraction of the solute (solute / (solute +
+    /// water)) at which the fit was checked against data.
+    pub max_mass_fraction: f64,
+    /// Lowest temperature, °C, at which the solute's own partial pressure
+    /// from this fit is usable (the a_w may be valid lower).
+    pub partial_pressure_t_min_c: f64,
     /// Source.
     pub source: Cite,
 }
