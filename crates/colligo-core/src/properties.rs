@@ -798,9 +798,9 @@ fn diagnose(
                 } else {
                     1.0
                 };
-                (m, "own molality (Ross)", share >= 0.05)
+                (m, "own concentration (Ross)", share >= 0.05)
             }
-            _ => (m, "own molality", true),
+            _ => (m, "own concentration", true),
         };
         match (model, c.role) {
             (ModelId::Ideal, _) => {}

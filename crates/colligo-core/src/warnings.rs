@@ -189,7 +189,7 @@ impl fmt::Display for Warning {
                 basis,
             } => write!(
                 f,
-                "{solute}: {value:.3} {unit} ({basis}) is beyond the data behind its {model} parameters (up to {max:.3} {unit})"
+                "{solute}: {value:.3} {unit} ({basis}) is beyond the data behind the parameters the {model} model uses for it (up to {max:.3} {unit})"
             ),
             Warning::BeyondValidatedTemperature {
                 solute,
@@ -198,7 +198,7 @@ impl fmt::Display for Warning {
                 range_c,
             } => write!(
                 f,
-                "{solute}: {t_c:.1} °C is outside the temperature range of the data behind its {model} parameters ({:.1} to {:.1} °C)",
+                "{solute}: {t_c:.1} °C is outside the temperature range of the data behind the parameters the {model} model uses for it ({:.1} to {:.1} °C)",
                 range_c.0, range_c.1
             ),
             Warning::VolatileByRoss { solute, model } => write!(
