@@ -6,6 +6,7 @@
 //! library) are hard checks. Rows tagged `Mem` (recalled, unconfirmed) are
 //! compared and reported but never fail the suite.
 
+use colligo_core::csv::split_csv;
 use std::collections::HashMap;
 use std::path::PathBuf;
 
@@ -61,27 +62,6 @@ impl Row {
     pub fn hard(&self) -> bool {
         matches!(self.str("tag").trim(), "Pub" | "Lib")
     }
-}
-
-/// Splits a CSV line with RFC 4180 quoting.
-pub fn split_csv(line: &str) -> Vec<String> {
-    let mut out = Vec::new();
-    let mut cur = String::new();
-    let mut quoted = false;
-    let mut chars = line.chars().peekable();
-    while let Some(c) = chars.next() {
-        match (c, quoted) {
-            ('"', true) if chars.peek() == Some(&'"') => {
-                cur.push('"');
-                chars.next();
-            }
-            ('"', _) => quoted = !quoted,
-            (',', false) => out.push(std::mem::take(&mut cur)),
-            _ => cur.push(c),
-        }
-    }
-    out.push(cur);
-    out
 }
 
 /// Reads `tests/data/<name>.csv`.

@@ -13,8 +13,9 @@ use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::water::{self, M_W, R, T_ZERO_C};
 use colligo_core::{Library, ModelError};
 
-use crate::cli::{csv_field, push_num, split_csv};
+use crate::cli::push_num;
 use crate::report;
+use colligo_core::csv::{csv_field, split_csv};
 
 /// Keys that follow from ln a_w alone (no freezing or boiling solve).
 const FAST_KEYS: [&str; 10] = [

@@ -7,6 +7,7 @@ use std::io::Write as _;
 use std::path::Path;
 
 use anyhow::{Context, Result, anyhow, bail};
+use colligo_core::csv::csv_field;
 use colligo_core::formula::parse_mix;
 use colligo_core::models::ModelId;
 use colligo_core::project::Project;
@@ -455,36 +456,6 @@ pub fn push_num(out: &mut String, v: f64) {
     }
 }
 
-/// Quotes a CSV field when needed.
-pub fn csv_field(s: &str) -> String {
-    if s.contains([',', '"', '\n']) {
-        format!("\"{}\"", s.replace('"', "\"\""))
-    } else {
-        s.to_string()
-    }
-}
-
-/// Splits one CSV line (RFC 4180 quoting).
-pub fn split_csv(line: &str) -> Vec<String> {
-    let mut fields = Vec::new();
-    let mut cur = String::new();
-    let mut quoted = false;
-    let mut chars = line.chars().peekable();
-    while let Some(c) = chars.next() {
-        match (c, quoted) {
-            ('"', true) if chars.peek() == Some(&'"') => {
-                cur.push('"');
-                chars.next();
-            }
-            ('"', _) => quoted = !quoted,
-            (',', false) => fields.push(std::mem::take(&mut cur)),
-            _ => cur.push(c),
-        }
-    }
-    fields.push(cur);
-    fields
-}
-
 fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()> {
     args.only(&["temperature", "pressure", "storage", "model", "properties"])?;
     let path = args
@@ -543,14 +514,5 @@ mod tests {
         assert_eq!(fmt_num(3_169.824_486_313_972), "3169.824486");
         assert_eq!(fmt_num(f64::NAN), "");
         assert_eq!(fmt_num(1.5e-7), "1.500000000e-7");
-    }
-
-    #[test]
-    fn csv_splits_quoted_fields() {
-        assert_eq!(
-            split_csv(r#"a,"b, c","d ""q""""#),
-            vec!["a", "b, c", r#"d "q""#]
-        );
-        assert_eq!(csv_field("x,y"), "\"x,y\"");
     }
 }

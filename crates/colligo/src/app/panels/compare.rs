@@ -35,7 +35,7 @@ impl Comparison {
         );
         let o = |v: Option<f64>| v.map_or(String::new(), |x| x.to_string());
         for r in &self.rows {
-            let name = crate::cli::csv_field(&r.name);
+            let name = colligo_core::csv::csv_field(&r.name);
             match &r.props {
                 Ok(p) => s.push_str(&format!(
                     "{name},{},{},{},{},{},{},{},\n",
@@ -47,7 +47,10 @@ impl Comparison {
                     p.water_percent,
                     p.soluble_solids_percent
                 )),
-                Err(e) => s.push_str(&format!("{name},,,,,,,,{}\n", crate::cli::csv_field(e))),
+                Err(e) => s.push_str(&format!(
+                    "{name},,,,,,,,{}\n",
+                    colligo_core::csv::csv_field(e)
+                )),
             }
         }
         s
