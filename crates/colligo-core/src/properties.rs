@@ -245,7 +245,7 @@ pub fn freezing_point_with(
         max_iter: 100,
     };
     match solve_warm(&mut g, T_FREEZE_MIN, T_ZERO_C, x0, slope, opts) {
-        Ok((root, _)) => Ok(root.x),
+        Ok(root) => Ok(root.x),
         Err(SolverError::NoBracket { .. }) => Err(ModelError::Undefined {
             property: "freezing point",
             reason: "no ice forms above −60 °C".into(),
@@ -412,20 +412,19 @@ pub fn ice_fraction(
                 f_tol: 1e-10,
                 max_iter: 100,
             };
-            let (root, slope) =
-                solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| {
-                    ModelError::Solver {
-                        property: "ice fraction",
-                        source: e,
-                    }
-                })?;
+            let root = solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| {
+                ModelError::Solver {
+                    property: "ice fraction",
+                    source: e,
+                }
+            })?;
             if let Some(u1) = warm.ln_liquid {
                 warm.prev2 = warm.prev;
                 warm.prev = Some((warm.t_last, u1));
             }
             warm.t_last = t_k;
             warm.ln_liquid = Some(root.x);
-            warm.slope = slope;
+            warm.slope = root.slope;
             w_total * root.x.exp()
         }
     };
@@ -534,7 +533,7 @@ pub fn boiling_point(
             max_iter: 100,
         },
     ) {
-        Ok((root, _)) => Ok(root.x),
+        Ok(root) => Ok(root.x),
         Err(SolverError::NoBracket { .. }) => Err(ModelError::Undefined {
             property: "boiling point",
             reason: "the solution does not boil below 200 °C at this pressure".into(),

@@ -162,7 +162,8 @@ pub fn brent(
 /// previous answer) and a slope estimate `slope0` (0 when unknown). Takes
 /// secant steps while they stay inside what is known to bracket the root
 /// and keep shrinking |f|; otherwise brackets and hands over to [`brent`].
-/// Returns the root and the last slope, to warm-start the next call.
+/// The root's `slope` is the last finite slope seen, to warm-start the
+/// next call.
 ///
 /// # Errors
 /// As [`brent`]; `NoBracket` when f has one sign on all of `[lo, hi]`.
@@ -173,11 +174,19 @@ pub fn solve_warm(
     x0: f64,
     slope0: f64,
     opts: SolveOptions,
-) -> Result<(Root, f64), SolverError> {
+) -> Result<Root, SolverError> {
     let mut evals = 0;
     let mut eval = |x: f64, evals: &mut usize| {
         *evals += 1;
         f(x)
+    };
+    // Keeps the most recent point on each side of the root.
+    let record = |p: (f64, f64), neg: &mut Option<(f64, f64)>, pos: &mut Option<(f64, f64)>| {
+        if p.1 < 0.0 {
+            *neg = Some(p);
+        } else {
+            *pos = Some(p);
+        }
     };
     let mut x = x0.clamp(lo, hi);
     let mut fx = eval(x, &mut evals);
@@ -191,21 +200,9 @@ pub fn solve_warm(
     let mut prev: Option<(f64, f64)> = None;
     for _ in 0..12 {
         if fx.abs() <= opts.f_tol {
-            return Ok((
-                Root {
-                    x,
-                    f: fx,
-                    evaluations: evals,
-                    slope,
-                },
-                slope,
-            ));
+            break;
         }
-        if fx < 0.0 {
-            neg = Some((x, fx));
-        } else {
-            pos = Some((x, fx));
-        }
+        record((x, fx), &mut neg, &mut pos);
         if let Some((px, pf)) = prev {
             let s = (fx - pf) / (x - px);
             if s.is_finite() && s != 0.0 {
@@ -223,11 +220,7 @@ pub fn solve_warm(
             if slope == 0.0 || !slope.is_finite() {
                 break;
             }
-            if fp < 0.0 {
-                neg = Some((x + h, fp));
-            } else {
-                pos = Some((x + h, fp));
-            }
+            record((x + h, fp), &mut neg, &mut pos);
         }
         let next = x - fx / slope;
         let (blo, bhi) = match (neg, pos) {
@@ -240,15 +233,12 @@ pub fn solve_warm(
         if (next - x).abs() <= opts.x_tol {
             // A step this small changes f by less than the tolerance
             // allows to matter; f at `next` is its linear estimate.
-            return Ok((
-                Root {
-                    x: next,
-                    f: fx + slope * (next - x),
-                    evaluations: evals,
-                    slope,
-                },
+            return Ok(Root {
+                x: next,
+                f: fx + slope * (next - x),
+                evaluations: evals,
                 slope,
-            ));
+            });
         }
         let fnext = eval(next, &mut evals);
         if !fnext.is_finite() {
@@ -259,24 +249,17 @@ pub fn solve_warm(
         x = next;
         fx = fnext;
         if stalled {
-            if fx < 0.0 {
-                neg = Some((x, fx));
-            } else {
-                pos = Some((x, fx));
-            }
+            record((x, fx), &mut neg, &mut pos);
             break;
         }
     }
     if fx.abs() <= opts.f_tol {
-        return Ok((
-            Root {
-                x,
-                f: fx,
-                evaluations: evals,
-                slope,
-            },
+        return Ok(Root {
+            x,
+            f: fx,
+            evaluations: evals,
             slope,
-        ));
+        });
     }
     let (a, fa, b, fb) = match (neg, pos) {
         (Some(n), Some(p)) => (n.0, n.1, p.0, p.1),
@@ -316,14 +299,11 @@ pub fn solve_warm(
     } else {
         slope
     };
-    Ok((
-        Root {
-            evaluations: root.evaluations + evals,
-            slope,
-            ..root
-        },
+    Ok(Root {
+        evaluations: root.evaluations + evals,
         slope,
-    ))
+        ..root
+    })
 }
 
 #[cfg(test)]
@@ -356,7 +336,7 @@ mod tests {
     #[test]
     fn warm_start_converges_in_few_steps() {
         let f = |x: f64| (x - 0.3).exp() - 1.0;
-        let (r, _) = solve_warm(f, -5.0, 5.0, 0.29, 1.0, SolveOptions::default())
+        let r = solve_warm(f, -5.0, 5.0, 0.29, 1.0, SolveOptions::default())
             .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 0.3).abs() < 1e-9);
         assert!(r.evaluations <= 5, "{}", r.evaluations);
@@ -365,7 +345,7 @@ mod tests {
     #[test]
     fn warm_start_survives_a_bad_guess() {
         let f = |x: f64| x.atan() - 1.2;
-        let (r, _) = solve_warm(f, -50.0, 50.0, -40.0, 0.0, SolveOptions::default())
+        let r = solve_warm(f, -50.0, 50.0, -40.0, 0.0, SolveOptions::default())
             .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 1.2f64.tan()).abs() < 1e-8);
     }
