@@ -813,10 +813,13 @@ fn diagnose(
                 model,
                 why: "no Pitzer neutral-species parameters; counted ideally (Raoult)".into(),
             }),
-            (ModelId::Norrish | ModelId::Pitzer, Role::Volatile) => out.push(Warning::VolatileByRoss {
-                solute: id.clone(),
-                model,
-            }),
+            (ModelId::Norrish | ModelId::Pitzer, Role::Volatile) => {
+                out.push(Warning::VolatileByRoss {
+                    solute: id.clone(),
+                    model,
+                });
+                binary_validity(lib, c.solute, model, m_used, basis, significant, t_c, &mut out);
+            }
             _ => binary_validity(lib, c.solute, model, m_used, basis, significant, t_c, &mut out),
         }
     }
@@ -1052,6 +1055,22 @@ mod tests {
         assert!(!beyond(&ok) && !pressure(&ok), "{ok:?}");
         let strong = run(45.0, 25.0);
         assert!(beyond(&strong), "{strong:?}");
+        // The same limits hold where another model folds ethanol in by Ross's rule.
+        let mut c = Composition::new();
+        c.add_water(0.055);
+        c.add_solute(e, 0.045, mm);
+        for model in [ModelId::Norrish, ModelId::Pitzer] {
+            let w = evaluate(
+                &lib,
+                &c,
+                model,
+                &Conditions::default(),
+                Wanted::WATER_ACTIVITY,
+            )
+            .unwrap_or_else(|err| panic!("{err}"))
+            .warnings;
+            assert!(beyond(&w), "{model}: {w:?}");
+        }
         let cold = run(20.0, 4.0);
         assert!(pressure(&cold) && !beyond(&cold), "{cold:?}");
     }
