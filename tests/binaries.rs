@@ -3,7 +3,7 @@
 
 use colligo_core::composition::Composition;
 use colligo_core::models::pitzer::aphi;
-use colligo_core::models::{CapMode, Evaluator, ModelId};
+use colligo_core::models::{CapMode, Evaluator, ModelChoice};
 use colligo_core::water::T_ZERO_C;
 use colligo_reference::{Check, Tol, finish_all, library, table};
 
@@ -23,7 +23,7 @@ fn binary_water_activity() {
         let mut c = Composition::new();
         c.add_water(1.0 - wt / 100.0);
         c.add_solute(s, wt / 100.0, lib.solutes[s].molar_mass);
-        let mut ev = Evaluator::new(&lib, &c, ModelId::Auto);
+        let mut ev = Evaluator::new(&lib, &c, ModelChoice::Auto.resolve(&lib, &c).model);
         let got = ev
             .ln_aw(r.num("t_c") + T_ZERO_C, c.water_kg, &CapMode::Unlimited)
             .exp();

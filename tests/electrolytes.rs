@@ -3,7 +3,7 @@
 //! fraction of freezing brine.
 
 use colligo_core::composition::Composition;
-use colligo_core::models::{CapMode, Evaluator, ModelId};
+use colligo_core::models::{CapMode, Evaluator, Model, ModelChoice};
 use colligo_core::properties::{WarmStart, boiling_point, ice_fraction};
 use colligo_core::water::{self, M_W, T_ZERO_C};
 use colligo_core::{Conditions, Library, Wanted, evaluate};
@@ -45,8 +45,8 @@ fn osmotic_coefficients() {
         let m = r.nums("molalities");
         let t = r.num("t_c") + T_ZERO_C;
         let c = brine(&lib, sys, &m);
-        let mut ev = Evaluator::new(&lib, &c, ModelId::Pitzer);
-        let mols: Vec<f64> = ev.comps.iter().map(|x| x.mol).collect();
+        let mut ev = Evaluator::new(&lib, &c, Model::Pitzer);
+        let mols: Vec<f64> = ev.components().iter().map(|x| x.mol).collect();
         let ln_aw = ev.ln_aw_of(t, 1.0, &mols);
         let got_phi = -ln_aw / (M_W * particles(&lib, sys, &m));
         let label = format!("{sys} {m:?} mol/kg at {} °C", r.num("t_c"));
@@ -99,7 +99,7 @@ fn boiling_points() {
         let m = r.nums("molalities");
         let p = r.num("pressure_kpa") * 1000.0;
         let comp = brine(&lib, sys, &m);
-        let mut ev = Evaluator::new(&lib, &comp, ModelId::Pitzer);
+        let mut ev = Evaluator::new(&lib, &comp, Model::Pitzer);
         let tb =
             boiling_point(&mut ev, p, None).unwrap_or_else(|e| panic!("{sys}: {e}")) - T_ZERO_C;
         // pytzer rows: same model, 0.05 K; the handbook row for saturated
@@ -133,8 +133,14 @@ fn saturated_salt_solutions() {
             temperature_k: r.num("t_c") + T_ZERO_C,
             ..Conditions::default()
         };
-        let p = evaluate(&lib, &comp, ModelId::Auto, &cond, Wanted::WATER_ACTIVITY)
-            .unwrap_or_else(|e| panic!("{e}"));
+        let p = evaluate(
+            &lib,
+            &comp,
+            ModelChoice::Auto,
+            &cond,
+            Wanted::WATER_ACTIVITY,
+        )
+        .unwrap_or_else(|e| panic!("{e}"));
         // Greenspan's uncertainty (± 0.12 % for NaCl) plus the solubility
         // curve's: 0.3 % ERH.
         c.compare(
@@ -158,7 +164,7 @@ fn nacl_eutectic() {
     for r in table("eutectics") {
         // Find T where a_w(saturated at T) = a_w,ice(T) by bisection.
         let comp = brine(&lib, r.str("solute"), &[8.0]);
-        let mut ev = Evaluator::new(&lib, &comp, ModelId::Auto);
+        let mut ev = Evaluator::new(&lib, &comp, ModelChoice::Auto.resolve(&lib, &comp).model);
         let mut f =
             |t: f64| ev.ln_aw(t, 1.0, &CapMode::Equilibrium) - water::ice_equilibrium_ln_aw(t);
         let (mut lo, mut hi) = (T_ZERO_C - 30.0, T_ZERO_C - 10.0);
@@ -204,7 +210,7 @@ fn ice_fraction_of_brines() {
         let mut comp = Composition::new();
         comp.add_water(1.0 - wt / 100.0);
         comp.add_solute(s, wt / 100.0, lib.solutes[s].molar_mass);
-        let mut ev = Evaluator::new(&lib, &comp, ModelId::Auto);
+        let mut ev = Evaluator::new(&lib, &comp, ModelChoice::Auto.resolve(&lib, &comp).model);
         ev.ln_aw(298.15, comp.water_kg, &CapMode::Equilibrium);
         let before = ev.last_dissolved().to_vec();
         let t = r.num("t_c") + T_ZERO_C;

@@ -3,7 +3,7 @@
 //! and other published tables in `data/freezing_points.csv`.
 
 use colligo_core::composition::Composition;
-use colligo_core::models::{CapMode, Evaluator, ModelId};
+use colligo_core::models::{CapMode, Evaluator, ModelChoice};
 use colligo_core::properties::freezing_point_with;
 use colligo_core::water::T_ZERO_C;
 use colligo_reference::{Check, Row, Tol, library, table};
@@ -49,7 +49,7 @@ fn depression(lib: &colligo_core::Library, id: &str, wt: f64) -> f64 {
     let mut comp = Composition::new();
     comp.add_water(1.0 - wt / 100.0);
     comp.add_solute(s, wt / 100.0, lib.solutes[s].molar_mass);
-    let mut ev = Evaluator::new(lib, &comp, ModelId::Auto);
+    let mut ev = Evaluator::new(lib, &comp, ModelChoice::Auto.resolve(lib, &comp).model);
     // Handbook freezing points include metastable, supersaturated
     // solutions (urea beyond its eutectic): no solubility cap.
     T_ZERO_C

@@ -5,7 +5,7 @@
 //! `data/osmotic_coefficients.csv`).
 
 use colligo_core::composition::Composition;
-use colligo_core::models::{Evaluator, ModelId};
+use colligo_core::models::{Evaluator, Model};
 use colligo_core::water::T_ZERO_C;
 use colligo_reference::{Check, Tol, finish_all, library, table};
 
@@ -34,16 +34,16 @@ fn mixing_rules_against_pitzer_mixtures() {
         let label = format!("{sys} {m:?} at {} °C", r.num("t_c"));
         let aw = |model| {
             let mut ev = Evaluator::new(&lib, &c, model);
-            let mols: Vec<f64> = ev.comps.iter().map(|x| x.mol).collect();
+            let mols: Vec<f64> = ev.components().iter().map(|x| x.mol).collect();
             ev.ln_aw_of(t, 1.0, &mols).exp()
         };
         // ZSR holds within about 1e-3 in a_w for common-ion chloride
         // mixtures to 3 mol/kg (Stokes & Robinson 1966; Robinson & Stokes,
         // Electrolyte Solutions, ch. 15): 2e-3.
-        zsr.compare(&r, &label, aw(ModelId::Zsr), want, Tol::Abs(2e-3));
+        zsr.compare(&r, &label, aw(Model::Zsr), want, Tol::Abs(2e-3));
         // Ross's rule neglects solute–solute interactions; reported only,
         // to show why `auto` uses ZSR for mixtures.
-        ross_worst = ross_worst.max((aw(ModelId::Ross) - want).abs());
+        ross_worst = ross_worst.max((aw(Model::Ross) - want).abs());
     }
     println!("Ross's rule on the same mixtures: worst |Δa_w| = {ross_worst:.4} (not a check)");
     finish_all([zsr]);

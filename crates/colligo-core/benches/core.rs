@@ -4,7 +4,7 @@ use std::hint::black_box;
 
 use colligo_core::composition::Composition;
 use colligo_core::formula::{Formula, Line};
-use colligo_core::models::{CapMode, Evaluator, ModelId};
+use colligo_core::models::{CapMode, Evaluator, Model, ModelChoice};
 use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::sweep::{linspace, quick_sweep, quick_sweeps};
 use colligo_core::water::T_ZERO_C;
@@ -48,8 +48,12 @@ fn benches(c: &mut Criterion) {
     let t = T_ZERO_C + 25.0;
     let cond = Conditions::default();
 
-    let mut ev = Evaluator::new(&lib, &comp12, ModelId::Auto);
-    assert_eq!(ev.model(), ModelId::Zsr);
+    let mut ev = Evaluator::new(
+        &lib,
+        &comp12,
+        ModelChoice::Auto.resolve(&lib, &comp12).model,
+    );
+    assert_eq!(ev.model(), Model::Zsr);
     ev.ln_aw(t, comp12.water_kg, &CapMode::Equilibrium);
     // Live editing: each evaluation follows a slightly different formula
     // (sucrose alternates between 120 and 121 g), so the solver starts
@@ -74,7 +78,9 @@ fn benches(c: &mut Criterion) {
         |b| {
             b.iter(|| {
                 let comp = black_box(&f12).composition(&lib).unwrap_or_default();
-                black_box(properties::water_activity(&lib, &comp, ModelId::Auto, t).unwrap_or(0.0))
+                black_box(
+                    properties::water_activity(&lib, &comp, ModelChoice::Auto, t).unwrap_or(0.0),
+                )
             })
         },
     );
@@ -85,7 +91,7 @@ fn benches(c: &mut Criterion) {
                 black_box(properties::evaluate(
                     &lib,
                     black_box(&comp12),
-                    ModelId::Auto,
+                    ModelChoice::Auto,
                     &cond,
                     Wanted::ALL,
                 ))
@@ -103,7 +109,7 @@ fn benches(c: &mut Criterion) {
             black_box(properties::freezing_curve(
                 &lib,
                 black_box(&comp_ic),
-                ModelId::Auto,
+                ModelChoice::Auto,
                 &cond,
                 &temps,
             ))
@@ -114,7 +120,7 @@ fn benches(c: &mut Criterion) {
             black_box(properties::freezing_curve(
                 &lib,
                 black_box(&comp12),
-                ModelId::Auto,
+                ModelChoice::Auto,
                 &cond,
                 &temps,
             ))
@@ -145,20 +151,20 @@ fn benches(c: &mut Criterion) {
         |b| {
             b.iter(|| {
                 for (id, a) in &r12 {
-                    black_box(quick_sweep(&lib, &f12, id, a, ModelId::Auto, t, true).ok());
+                    black_box(quick_sweep(&lib, &f12, id, a, ModelChoice::Auto, t, true).ok());
                 }
             })
         },
     );
     c.bench_function(
         "8 ingredients x 200-point sweeps, a_w + freezing point, 12 solutes, all cores",
-        |b| b.iter(|| black_box(quick_sweeps(&lib, &f12, &r12, ModelId::Auto, t, true).ok())),
+        |b| b.iter(|| black_box(quick_sweeps(&lib, &f12, &r12, ModelChoice::Auto, t, true).ok())),
     );
     let spread = sample(&lib, "reduced_sugar_spread");
     let rs = ranges(&spread);
     c.bench_function(
         "sweeps of every ingredient (6) x 200 points, spread sample, all cores",
-        |b| b.iter(|| black_box(quick_sweeps(&lib, &spread, &rs, ModelId::Auto, t, true).ok())),
+        |b| b.iter(|| black_box(quick_sweeps(&lib, &spread, &rs, ModelChoice::Auto, t, true).ok())),
     );
 }
 

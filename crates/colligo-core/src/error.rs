@@ -228,3 +228,15 @@ pub enum ProjectError {
         message: String,
     },
 }
+
+/// Text that does not name something the core knows (a model, a target).
+#[derive(Debug, Clone, PartialEq, Error)]
+#[non_exhaustive]
+pub enum ParseError {
+    /// Not a model id.
+    #[error("unknown model `{text}` (choose auto, ideal, norrish, ross, zsr or pitzer)")]
+    UnknownModel {
+        /// What was given.
+        text: String,
+    },
+}

@@ -7,7 +7,7 @@ use std::str::FromStr;
 use crate::error::{FormulaError, ModelError};
 use crate::formula::Formula;
 use crate::library::Library;
-use crate::models::ModelId;
+use crate::models::ModelChoice;
 use crate::properties::{self, Conditions, Properties, Wanted};
 use crate::quantity::parse_temperature;
 use crate::solver::{SolveOptions, brent};
@@ -229,7 +229,7 @@ pub fn goal_seek(
     formula: &Formula,
     ingredient: &str,
     target: Target,
-    model: ModelId,
+    model: ModelChoice,
     cond: &Conditions,
 ) -> Result<GoalResult, GoalError> {
     target.check().map_err(GoalError::BadTarget)?;

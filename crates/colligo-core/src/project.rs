@@ -23,9 +23,9 @@ use serde::{Deserialize, Serialize};
 
 use crate::error::ProjectError;
 use crate::formula::Formula;
-use crate::library::{IngredientRecord, Library, SoluteRecord};
-use crate::models::ModelId;
-use crate::properties::Conditions;
+use crate::library::{Audience, IngredientRecord, Library, SoluteRecord};
+use crate::models::ModelChoice;
+use crate::properties::{Conditions, Limits};
 use crate::quantity::{AmountUnit, PressureUnit, TemperatureUnit};
 use crate::water::T_ZERO_C;
 
@@ -65,17 +65,6 @@ impl ProjectConditions {
     }
 }
 
-/// Which kind of product the project is about (selects guidance lines).
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize, Default)]
-#[serde(rename_all = "snake_case")]
-pub enum ProductKind {
-    /// A food.
-    #[default]
-    Food,
-    /// A cosmetic or personal-care product.
-    Cosmetic,
-}
-
 /// Display units chosen for the project.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize, Default)]
 #[serde(deny_unknown_fields)]
@@ -104,11 +93,11 @@ pub struct Project {
     pub notes: String,
     /// Food or cosmetic.
     #[serde(default)]
-    pub product: ProductKind,
+    pub product: Audience,
     /// Conditions.
     pub conditions: ProjectConditions,
     /// Chosen model.
-    pub model: ModelId,
+    pub model: ModelChoice,
     /// Display units.
     #[serde(default)]
     pub units: UnitPrefs,
@@ -131,9 +120,9 @@ impl Default for Project {
             format_version: FORMAT_VERSION,
             name: "Untitled".into(),
             notes: String::new(),
-            product: ProductKind::Food,
+            product: Audience::Food,
             conditions: ProjectConditions::default(),
-            model: ModelId::Auto,
+            model: ModelChoice::Auto,
             units: UnitPrefs::default(),
             variants: vec![Formula::new(
                 "Variant 1",
@@ -275,24 +264,37 @@ impl Project {
             });
         }
         let c = &self.conditions;
-        let finite_in = |v: f64, lo: f64, hi: f64| v.is_finite() && (lo..=hi).contains(&v);
-        if !finite_in(c.temperature_c, -60.0, 200.0) {
-            return Err(invalid(
-                "conditions.temperature_c".into(),
-                format!("{} °C is outside −60 to 200 °C", c.temperature_c),
-            ));
-        }
-        if !finite_in(c.storage_temperature_c, -60.0, 50.0) {
-            return Err(invalid(
-                "conditions.storage_temperature_c".into(),
-                format!("{} °C is outside −60 to 50 °C", c.storage_temperature_c),
-            ));
-        }
-        if !finite_in(c.pressure_kpa, 1.0, 1000.0) {
-            return Err(invalid(
-                "conditions.pressure_kpa".into(),
-                format!("{} kPa is outside 1 to 1000 kPa", c.pressure_kpa),
-            ));
+        let checks = [
+            (
+                "conditions.temperature_c",
+                c.temperature_c,
+                Limits::TEMPERATURE_C,
+                "°C",
+            ),
+            (
+                "conditions.storage_temperature_c",
+                c.storage_temperature_c,
+                Limits::STORAGE_TEMPERATURE_C,
+                "°C",
+            ),
+            (
+                "conditions.pressure_kpa",
+                c.pressure_kpa,
+                Limits::PRESSURE_KPA,
+                "kPa",
+            ),
+        ];
+        for (field, v, range, unit) in checks {
+            if !Limits::within(v, range) {
+                return Err(invalid(
+                    field.into(),
+                    format!(
+                        "{v} {unit} is outside {} to {} {unit}",
+                        fmt_limit(range.0),
+                        fmt_limit(range.1)
+                    ),
+                ));
+            }
         }
         if self.variants.is_empty() {
             return Err(invalid(
@@ -382,4 +384,13 @@ pub fn write_atomic(path: &Path, bytes: &[u8]) -> Result<(), ProjectError> {
         let _ = std::fs::remove_file(&tmp);
     }
     result.map_err(io)
+}
+
+/// A range end as written in messages: −60, not -60.
+fn fmt_limit(v: f64) -> String {
+    if v < 0.0 {
+        format!("−{}", -v)
+    } else {
+        format!("{v}")
+    }
 }

@@ -6,7 +6,7 @@ use crate::composition::Composition;
 use crate::error::{FormulaError, ModelError};
 use crate::formula::{Formula, Line};
 use crate::library::Library;
-use crate::models::{CapMode, Evaluator, ModelId, auto_choice};
+use crate::models::{CapMode, Evaluator, Model, ModelChoice};
 use crate::properties::{self, Conditions, Properties, Wanted};
 use crate::quantity::AmountUnit;
 use crate::water::T_ZERO_C;
@@ -87,7 +87,7 @@ pub fn quick_sweeps(
     lib: &Library,
     formula: &Formula,
     sweeps: &[(String, Vec<f64>)],
-    model: ModelId,
+    model: ModelChoice,
     t_k: f64,
     with_freezing: bool,
 ) -> Result<Vec<QuickSweep>, SweepError> {
@@ -134,7 +134,7 @@ pub fn quick_sweeps(
 #[derive(Debug, Clone, PartialEq)]
 pub struct QuickSweep {
     /// The concrete model used for every point.
-    pub model: ModelId,
+    pub model: Model,
     /// Amounts of the swept ingredient, kg.
     pub amount_kg: Vec<f64>,
     /// Water activity at each amount.
@@ -151,7 +151,7 @@ fn prepare<'l>(
     formula: &Formula,
     id: &str,
     amounts_kg: &[f64],
-    model: ModelId,
+    model: ModelChoice,
 ) -> Result<(Vec<Composition>, Evaluator<'l>), SweepError> {
     let ing = lib.ingredient_or_suggest(id).map_err(FormulaError::from)?;
     let comps = compositions(lib, formula, id, ing, amounts_kg)?;
@@ -165,11 +165,7 @@ fn prepare<'l>(
             }
         }
     }
-    let resolved = if model == ModelId::Auto {
-        auto_choice(lib, &union).0
-    } else {
-        model
-    };
+    let resolved = model.resolve(lib, &union).model;
     let solutes: Vec<usize> = union.solutes.iter().map(|s| s.solute).collect();
     Ok((comps, Evaluator::with_solutes(lib, &solutes, resolved)))
 }
@@ -183,7 +179,7 @@ pub fn quick_sweep(
     formula: &Formula,
     id: &str,
     amounts_kg: &[f64],
-    model: ModelId,
+    model: ModelChoice,
     t_k: f64,
     with_freezing: bool,
 ) -> Result<QuickSweep, SweepError> {
@@ -231,7 +227,7 @@ pub fn full_sweep(
     formula: &Formula,
     id: &str,
     amounts_kg: &[f64],
-    model: ModelId,
+    model: ModelChoice,
     cond: &Conditions,
 ) -> Result<Vec<Result<Properties, ModelError>>, SweepError> {
     lib.ingredient_or_suggest(id).map_err(FormulaError::from)?;
@@ -270,7 +266,7 @@ pub fn sensitivities(
     lib: &Library,
     formula: &Formula,
     ingredients: &[String],
-    model: ModelId,
+    model: ModelChoice,
     cond: &Conditions,
     step_g: f64,
 ) -> Result<Vec<Sensitivity>, SweepError> {

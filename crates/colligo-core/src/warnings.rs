@@ -5,7 +5,7 @@ use std::fmt;
 
 use serde::Serialize;
 
-use crate::models::ModelId;
+use crate::models::Model;
 
 /// One warning on a result.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -37,14 +37,14 @@ pub enum Warning {
         /// Solute id.
         solute: String,
         /// Model in use.
-        model: ModelId,
+        model: Model,
     },
     /// The model has no parameters for this kind of solute.
     TreatedAsIdeal {
         /// Solute id.
         solute: String,
         /// Model in use.
-        model: ModelId,
+        model: Model,
         /// Why.
         why: String,
     },
@@ -53,7 +53,7 @@ pub enum Warning {
         /// Solute id.
         solute: String,
         /// Model in use.
-        model: ModelId,
+        model: Model,
         /// Value reached.
         value: f64,
         /// Highest value of the data.
@@ -68,7 +68,7 @@ pub enum Warning {
         /// Solute id.
         solute: String,
         /// Model in use.
-        model: ModelId,
+        model: Model,
         /// Temperature, °C.
         t_c: f64,
         /// Range of the data, °C.
@@ -79,7 +79,7 @@ pub enum Warning {
         /// Solute id.
         solute: String,
         /// Model in use.
-        model: ModelId,
+        model: Model,
     },
     /// A volatile co-solvent's own partial pressure at a temperature where
     /// its fit does not reproduce it.

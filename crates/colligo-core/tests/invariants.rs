@@ -5,7 +5,7 @@ use colligo_core::composition::Composition;
 use colligo_core::formula::{Formula, Line};
 use colligo_core::library::{Library, SoluteKind};
 use colligo_core::models::binary::best_binary;
-use colligo_core::models::{CapMode, Evaluator, ModelId};
+use colligo_core::models::{CapMode, Evaluator, ModelChoice};
 use colligo_core::project::{Project, ProjectConditions};
 use colligo_core::properties::{WarmStart, freezing_point, ice_fraction};
 use colligo_core::quantity::AmountUnit;
@@ -55,17 +55,17 @@ fn composition() -> impl Strategy<Value = Composition> {
     })
 }
 
-fn model() -> impl Strategy<Value = ModelId> {
-    prop::sample::select(ModelId::ALL.to_vec())
+fn model() -> impl Strategy<Value = ModelChoice> {
+    prop::sample::select(ModelChoice::ALL.to_vec())
 }
 
-fn ln_aw(c: &Composition, model: ModelId, t: f64) -> f64 {
-    let mut ev = Evaluator::new(&LIB, c, model);
+fn ln_aw(c: &Composition, model: ModelChoice, t: f64) -> f64 {
+    let mut ev = Evaluator::new(&LIB, c, model.resolve(&LIB, c).model);
     ev.ln_aw(t, c.water_kg, &CapMode::Equilibrium)
 }
 
-fn freezing_k(c: &Composition, model: ModelId) -> f64 {
-    let mut ev = Evaluator::new(&LIB, c, model);
+fn freezing_k(c: &Composition, model: ModelChoice) -> f64 {
+    let mut ev = Evaluator::new(&LIB, c, model.resolve(&LIB, c).model);
     ev.ln_aw(298.15, c.water_kg, &CapMode::Equilibrium);
     let before = ev.last_dissolved().to_vec();
     freezing_point(&mut ev, &before, None).unwrap_or(f64::NAN)
@@ -92,7 +92,7 @@ proptest! {
         prop_assume!(more.mol_of(s) <= valid_molality(&LIB, s) * more.water_kg);
         // `auto` may pick another model once a new kind of solute appears;
         // compare both formulas under the model chosen for the larger one.
-        let m = if m == ModelId::Auto { colligo_core::models::auto_choice(&LIB, &more).0 } else { m };
+        let m = if m == ModelChoice::Auto { ModelChoice::from(m.resolve(&LIB, &more).model) } else { m };
         let (a0, a1) = (ln_aw(&c, m, 298.15), ln_aw(&more, m, 298.15));
         prop_assert!(a1 <= a0 + 1e-12, "{} raised ln a_w {a0} → {a1}", LIB.solutes[s].id());
         let (f0, f1) = (freezing_k(&c, m), freezing_k(&more, m));
@@ -109,15 +109,15 @@ proptest! {
         c.add_solute(s, m * mm, mm);
         let binary = best_binary(&LIB, s, t).ln_aw(m);
         let sol = &LIB.solutes[s];
-        let mut rules = vec![ModelId::Ross, ModelId::Zsr, ModelId::Auto];
+        let mut rules = vec![ModelChoice::Ross, ModelChoice::Zsr, ModelChoice::Auto];
         if sol.is_electrolyte() && sol.pair.is_some() {
-            rules.push(ModelId::Pitzer);
+            rules.push(ModelChoice::Pitzer);
         }
         if !sol.is_electrolyte() && sol.volatile().is_none() {
-            rules.push(ModelId::Norrish);
+            rules.push(ModelChoice::Norrish);
         }
         for rule in rules {
-            let mut ev = Evaluator::new(&LIB, &c, rule);
+            let mut ev = Evaluator::new(&LIB, &c, rule.resolve(&LIB, &c).model);
             let got = ev.ln_aw_of(t, 1.0, &[m]);
             prop_assert!((got - binary).abs() <= 1e-10 * binary.abs().max(1e-12),
                 "{} under {rule}: {got} vs binary {binary}", sol.id());
@@ -132,7 +132,7 @@ proptest! {
             c.add_water(1.0);
             c.add_solute(s, mol * mm, mm);
             let got = ln_aw(&c, m, 298.15);
-            let ideal = ln_aw(&c, ModelId::Ideal, 298.15);
+            let ideal = ln_aw(&c, ModelChoice::Ideal, 298.15);
             ((got - ideal) / ideal).abs()
         };
         let (d4, d7) = (dev(1e-4), dev(1e-7));
@@ -143,7 +143,7 @@ proptest! {
 
     #[test]
     fn ice_fraction_in_range_and_growing_as_it_cools(c in composition(), m in model()) {
-        let mut ev = Evaluator::new(&LIB, &c, m);
+        let mut ev = Evaluator::new(&LIB, &c, m.resolve(&LIB, &c).model);
         ev.ln_aw(298.15, c.water_kg, &CapMode::Equilibrium);
         let before = ev.last_dissolved().to_vec();
         let total = c.total_kg();

@@ -8,7 +8,7 @@ use std::fmt::Write as _;
 
 use anyhow::{Result, bail};
 use colligo_core::composition::Composition;
-use colligo_core::models::{CapMode, Evaluator, ModelId, auto_choice};
+use colligo_core::models::{CapMode, Evaluator, Model, ModelChoice};
 use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::water::{self, M_W, R, T_ZERO_C};
 use colligo_core::{Library, ModelError};
@@ -39,7 +39,7 @@ pub fn run_batch(
     lib: &Library,
     text: &str,
     keys: &[&str],
-    model: ModelId,
+    model: ModelChoice,
     cond: &Conditions,
 ) -> Result<String> {
     let mut lines = text
@@ -85,8 +85,8 @@ pub fn run_batch(
     // One evaluator per (model, solute set); rows usually repeat the set of
     // their predecessor, which is checked without hashing.
     let mut evaluators: Vec<Evaluator<'_>> = Vec::new();
-    let mut index: HashMap<(ModelId, Vec<usize>), usize> = HashMap::new();
-    let mut last: Option<(ModelId, usize)> = None;
+    let mut index: HashMap<(Model, Vec<usize>), usize> = HashMap::new();
+    let mut last: Option<(Model, usize)> = None;
     let mut last_set: Vec<usize> = Vec::new();
     let mut set: Vec<usize> = Vec::new();
     let mut comp = Composition::new();
@@ -125,11 +125,7 @@ pub fn run_batch(
                 if !(properties::T_FREEZE_MIN..=properties::T_BOIL_MAX).contains(&t) {
                     return Err(format!("temperature {:.1} °C out of range", t - T_ZERO_C));
                 }
-                let resolved = if model == ModelId::Auto {
-                    auto_choice(lib, &comp).0
-                } else {
-                    model
-                };
+                let resolved = model.resolve(lib, &comp).model;
                 set.clear();
                 set.extend(
                     comp.solutes
@@ -154,7 +150,7 @@ pub fn run_batch(
                 let ln_aw = ev.ln_aw(t, comp.water_kg, &CapMode::Equilibrium);
                 let aw = ln_aw.exp();
                 let dissolved_kg: f64 = ev
-                    .comps
+                    .components()
                     .iter()
                     .zip(ev.last_dissolved())
                     .map(|(c, d)| d * lib.solutes[c.solute].molar_mass)

@@ -9,7 +9,7 @@ use std::path::Path;
 use anyhow::{Context, Result, anyhow, bail};
 use colligo_core::csv::csv_field;
 use colligo_core::formula::parse_mix;
-use colligo_core::models::ModelId;
+use colligo_core::models::ModelChoice;
 use colligo_core::project::Project;
 use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::quantity::{parse_amount, parse_pressure, parse_temperature};
@@ -196,7 +196,7 @@ pub struct Job {
     /// Conditions.
     pub cond: Conditions,
     /// Model.
-    pub model: ModelId,
+    pub model: ModelChoice,
     /// Title for tables.
     pub title: String,
 }
@@ -237,7 +237,7 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
             base.clone(),
             Formula::default(),
             Conditions::default(),
-            ModelId::Auto,
+            ModelChoice::Auto,
             "formula".to_string(),
         ),
     };
@@ -255,7 +255,7 @@ pub fn job(base: &Library, args: &Args) -> Result<Job> {
     }
     apply_conditions(args, &mut cond)?;
     if let Some(m) = args.get("model") {
-        model = m.parse().map_err(|e: String| anyhow!(e))?;
+        model = m.parse::<ModelChoice>()?;
     }
     // Resolve now so that unknown ingredients are reported with suggestions.
     formula.resolve(&lib)?;
@@ -465,11 +465,7 @@ fn batch(base: &Library, args: &Args, out: &mut dyn std::io::Write) -> Result<()
     let text = std::fs::read_to_string(path).with_context(|| format!("reading {path}"))?;
     let mut cond = Conditions::default();
     apply_conditions(args, &mut cond)?;
-    let model: ModelId = args
-        .get("model")
-        .unwrap_or("auto")
-        .parse()
-        .map_err(|e: String| anyhow!(e))?;
+    let model: ModelChoice = args.get("model").unwrap_or("auto").parse()?;
     let keys: Vec<&str> = match args.get("properties") {
         Some(list) => {
             let ks: Vec<&str> = list

@@ -6,7 +6,7 @@ use std::path::PathBuf;
 
 use colligo::app::commands::Command;
 use colligo::app::{Modal, Startup, WorkbenchApp};
-use colligo_core::models::ModelId;
+use colligo_core::models::ModelChoice;
 use colligo_core::quantity::TemperatureUnit;
 use egui::accesskit::Role;
 use egui::{Key, Modifiers};
@@ -153,7 +153,7 @@ fn switching_the_model() {
     h.run();
     h.get_by_label("Ideal (Raoult, with dissociation)").click();
     h.run();
-    assert_eq!(h.state().doc.project.model, ModelId::Ideal);
+    assert_eq!(h.state().doc.project.model, ModelChoice::Ideal);
     assert!(
         (aw(&h) - aw0).abs() > 1e-3,
         "the ideal model gives another a_w"

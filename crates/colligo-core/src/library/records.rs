@@ -502,12 +502,17 @@ pub struct IngredientFile {
     pub ingredients: Vec<IngredientRecord>,
 }
 
-/// Who a guidance line is for.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+/// Who a guidance line is for, and which kind of product a project is
+/// about (written `food` / `cosmetic` in project files).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize, Default)]
+#[serde(rename_all = "snake_case")]
 pub enum Audience {
     /// Food products.
+    #[default]
+    #[serde(alias = "Food")]
     Food,
     /// Cosmetic and personal-care products.
+    #[serde(alias = "Cosmetic")]
     Cosmetic,
 }
 

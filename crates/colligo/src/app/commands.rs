@@ -6,9 +6,10 @@
 use std::path::PathBuf;
 
 use colligo_core::formula::{Formula, Line};
+use colligo_core::library::Audience;
 use colligo_core::library::{IngredientRecord, SoluteRecord};
-use colligo_core::models::ModelId;
-use colligo_core::project::ProductKind;
+use colligo_core::models::ModelChoice;
+use colligo_core::properties::Limits;
 use colligo_core::quantity::{AmountUnit, PressureUnit, TemperatureUnit};
 use egui::{Key, KeyboardShortcut, Modifiers};
 
@@ -76,9 +77,9 @@ pub enum Command {
     /// Storage temperature, K.
     SetStorage(f64),
     /// Water-activity model.
-    SetModel(ModelId),
+    SetModel(ModelChoice),
     /// Food or cosmetic.
-    SetProduct(ProductKind),
+    SetProduct(Audience),
     /// Temperature display unit.
     SetTemperatureUnit(TemperatureUnit),
     /// Pressure display unit.
@@ -278,23 +279,17 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
         Command::ScaleBatch { total_g } => scale_batch(doc, *total_g)?,
         Command::SetTemperature(k) => {
             let c = k - colligo_core::water::T_ZERO_C;
-            if !(-60.0..=200.0).contains(&c) {
-                return Err(format!("{c:.1} °C is outside −60 to 200 °C"));
-            }
+            within(c, Limits::TEMPERATURE_C, "°C")?;
             doc.project.conditions.temperature_c = c;
         }
         Command::SetPressure(pa) => {
             let kpa = pa / 1000.0;
-            if !(1.0..=1000.0).contains(&kpa) {
-                return Err(format!("{kpa:.1} kPa is outside 1 to 1000 kPa"));
-            }
+            within(kpa, Limits::PRESSURE_KPA, "kPa")?;
             doc.project.conditions.pressure_kpa = kpa;
         }
         Command::SetStorage(k) => {
             let c = k - colligo_core::water::T_ZERO_C;
-            if !(-60.0..=50.0).contains(&c) {
-                return Err(format!("{c:.1} °C is outside −60 to 50 °C"));
-            }
+            within(c, Limits::STORAGE_TEMPERATURE_C, "°C")?;
             doc.project.conditions.storage_temperature_c = c;
         }
         Command::SetModel(m) => doc.project.model = *m,
@@ -430,6 +425,18 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
     }
     doc.touch();
     Ok(true)
+}
+
+/// `Ok` when `v` lies in the allowed `range`, else the message shown.
+fn within(v: f64, range: (f64, f64), unit: &str) -> Result<(), String> {
+    if Limits::within(v, range) {
+        Ok(())
+    } else {
+        Err(format!(
+            "{v:.1} {unit} is outside {} to {} {unit}",
+            range.0, range.1
+        ))
+    }
 }
 
 fn unique_name(doc: &Document, base: &str) -> String {

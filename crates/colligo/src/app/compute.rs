@@ -10,39 +10,14 @@ use std::sync::mpsc::{self, Receiver, Sender};
 use std::time::{Duration, Instant};
 
 use colligo_core::formula::Resolved;
-use colligo_core::models::ModelId;
-use colligo_core::properties::{self, Conditions, FreezingCurve, Properties, Wanted};
+use colligo_core::models::ModelChoice;
+use colligo_core::properties::{
+    self, Conditions, FreezingCurve, LineShare, ModelResult, Properties, VaporPoint, Wanted,
+    WaterAt,
+};
 use colligo_core::sweep::{self, QuickSweep};
-use colligo_core::warnings::Warning;
-use colligo_core::water::{self, T_ZERO_C};
+use colligo_core::water::T_ZERO_C;
 use colligo_core::{Formula, Library};
-
-/// Per line: computed columns of the formula table.
-#[derive(Debug, Clone, Default)]
-pub struct LineInfo {
-    /// Mass, g.
-    pub grams: f64,
-    /// Share of the batch, %.
-    pub percent: f64,
-    /// Solutes of this line that stay undissolved, g.
-    pub undissolved_g: f64,
-    /// This line's share of the lowering of ln a_w, % (sums to 100).
-    pub lowering_percent: f64,
-}
-
-/// a_w of the formula under one model, for the comparison table.
-#[derive(Debug, Clone)]
-pub struct ModelResult {
-    /// Model.
-    pub model: ModelId,
-    /// a_w, or why not.
-    pub water_activity: Result<f64, String>,
-    /// Freezing point, °C.
-    pub freezing_point_c: Option<f64>,
-    /// Whether the model has parameters for every solute here (no
-    /// "treated as ideal" substitutions).
-    pub applicable: bool,
-}
 
 /// One evaluation of the active variant.
 #[derive(Debug, Clone)]
@@ -54,7 +29,7 @@ pub struct Evaluation {
     /// Properties under the chosen model.
     pub props: Result<Properties, String>,
     /// Per line.
-    pub lines: Vec<LineInfo>,
+    pub lines: Vec<LineShare>,
     /// Every model's a_w.
     pub comparison: Vec<ModelResult>,
     /// Lowest and highest a_w among applicable models (not `ideal`).
@@ -64,7 +39,7 @@ pub struct Evaluation {
 }
 
 /// Hash of everything an evaluation depends on.
-pub fn key_of(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelId) -> u64 {
+pub fn key_of(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelChoice) -> u64 {
     let mut h = DefaultHasher::new();
     for l in &formula.lines {
         l.ingredient.hash(&mut h);
@@ -83,58 +58,33 @@ pub fn key_of(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelI
 
 /// Evaluates the formula under the chosen model and under every model for
 /// the comparison.
-pub fn evaluate(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelId) -> Evaluation {
+pub fn evaluate(
+    lib: &Library,
+    formula: &Formula,
+    cond: &Conditions,
+    model: ModelChoice,
+) -> Evaluation {
     let start = Instant::now();
     let key = key_of(lib, formula, cond, model);
     let resolved = formula.resolve(lib).map_err(|e| e.to_string());
-    let (props, lines, comparison) = match &resolved {
+    let (props, lines, spread) = match &resolved {
         Err(e) => (
             Err(e.clone()),
-            vec![LineInfo::default(); formula.lines.len()],
-            Vec::new(),
+            vec![LineShare::default(); formula.lines.len()],
+            None,
         ),
         Ok(r) => {
             let props = properties::evaluate(lib, &r.composition, model, cond, Wanted::ALL)
                 .map_err(|e| e.to_string());
-            let lines = line_info(lib, r, props.as_ref().ok());
-            let comparison = ModelId::CONCRETE
-                .iter()
-                .map(|&m| {
-                    let p = properties::evaluate(
-                        lib,
-                        &r.composition,
-                        m,
-                        cond,
-                        Wanted {
-                            freezing_point: true,
-                            ..Wanted::WATER_ACTIVITY
-                        },
-                    );
-                    match p {
-                        Ok(p) => ModelResult {
-                            model: m,
-                            water_activity: Ok(p.water_activity),
-                            freezing_point_c: p.freezing_point_c,
-                            applicable: !p.warnings.iter().any(|w| {
-                                matches!(
-                                    w,
-                                    Warning::TreatedAsIdeal { .. } | Warning::VolatileByRoss { .. }
-                                )
-                            }),
-                        },
-                        Err(e) => ModelResult {
-                            model: m,
-                            water_activity: Err(e.to_string()),
-                            freezing_point_c: None,
-                            applicable: false,
-                        },
-                    }
-                })
-                .collect();
-            (props, lines, comparison)
+            let lines = properties::line_shares(lib, r, props.as_ref().ok());
+            let spread = properties::compare_models(lib, &r.composition, cond);
+            (props, lines, Some(spread))
         }
     };
-    let band = band_of(&comparison);
+    let (comparison, band) = match spread {
+        Some(s) => (s.results, s.band),
+        None => (Vec::new(), None),
+    };
     Evaluation {
         key,
         resolved,
@@ -144,69 +94,6 @@ pub fn evaluate(lib: &Library, formula: &Formula, cond: &Conditions, model: Mode
         band,
         elapsed: start.elapsed(),
     }
-}
-
-fn band_of(c: &[ModelResult]) -> Option<(f64, f64)> {
-    let vals: Vec<f64> = c
-        .iter()
-        .filter(|r| r.applicable && r.model != ModelId::Ideal)
-        .filter_map(|r| r.water_activity.as_ref().ok().copied())
-        .collect();
-    if vals.len() < 2 {
-        return None;
-    }
-    let lo = vals.iter().copied().fold(f64::INFINITY, f64::min);
-    let hi = vals.iter().copied().fold(f64::NEG_INFINITY, f64::max);
-    Some((lo, hi))
-}
-
-/// Computed columns: each line's share of the batch, of the undissolved
-/// solids and of the lowering (each solute's share split among the lines
-/// that bring it, by mass).
-fn line_info(lib: &Library, r: &Resolved, props: Option<&Properties>) -> Vec<LineInfo> {
-    let total: f64 = r.line_kg.iter().sum();
-    let mut out: Vec<LineInfo> = r
-        .line_kg
-        .iter()
-        .map(|kg| LineInfo {
-            grams: kg * 1000.0,
-            percent: if total > 0.0 { 100.0 * kg / total } else { 0.0 },
-            ..LineInfo::default()
-        })
-        .collect();
-    let Some(p) = props else { return out };
-    let ln_total: f64 = p.solutes.iter().map(|s| s.ln_aw_share).sum();
-    for s in &p.solutes {
-        let Some(si) = lib.solute(&s.id) else {
-            continue;
-        };
-        // kg of this solute brought by each line.
-        let by_line: Vec<f64> = r
-            .line_ingredient
-            .iter()
-            .zip(&r.line_kg)
-            .map(|(&ing, &kg)| {
-                lib.ingredients[ing]
-                    .solutes
-                    .iter()
-                    .filter(|(s2, _, _)| *s2 == si)
-                    .map(|(_, frac, _)| frac * kg)
-                    .sum::<f64>()
-            })
-            .collect();
-        let sum: f64 = by_line.iter().sum();
-        if sum <= 0.0 {
-            continue;
-        }
-        for (info, kg) in out.iter_mut().zip(&by_line) {
-            let f = kg / sum;
-            info.undissolved_g += f * s.undissolved_g;
-            if ln_total != 0.0 {
-                info.lowering_percent += 100.0 * f * s.ln_aw_share / ln_total;
-            }
-        }
-    }
-    out
 }
 
 /// Which property a sweep plots.
@@ -286,8 +173,8 @@ pub enum ChartData {
     PerGram(Vec<(String, Vec<f64>, Vec<f64>)>),
     /// A freezing curve.
     Freezing(FreezingCurve),
-    /// (T °C, formula p Pa, water p Pa).
-    VaporPressure(Vec<(f64, f64, f64)>),
+    /// Vapour pressure of the formula and of water against temperature.
+    VaporPressure(Vec<VaporPoint>),
     /// The chart could not be computed.
     Failed(String),
 }
@@ -301,7 +188,7 @@ struct Request {
     lib: Arc<Library>,
     formula: Formula,
     cond: Conditions,
-    model: ModelId,
+    model: ModelChoice,
     job: ChartJob,
 }
 
@@ -360,7 +247,7 @@ impl ChartWorker {
         lib: &Arc<Library>,
         formula: &Formula,
         cond: &Conditions,
-        model: ModelId,
+        model: ModelChoice,
         job: ChartJob,
     ) {
         let mut h = DefaultHasher::new();
@@ -428,8 +315,12 @@ fn compute_chart(req: &Request) -> ChartData {
             let amounts = sweep::linspace(from_g / 1000.0, to_g / 1000.0, 121);
             match sweep::quick_sweep(lib, formula, ingredient, &amounts, *model, t, true) {
                 Ok(s) => {
-                    let p = water::p_sat_liquid(t);
-                    let vapor_pa = s.water_activity.iter().map(|a| a * p).collect();
+                    let pure = WaterAt::new(t);
+                    let vapor_pa = s
+                        .water_activity
+                        .iter()
+                        .map(|&a| pure.vapor_pressure_pa(a))
+                        .collect();
                     ChartData::Sweep {
                         ingredient: ingredient.clone(),
                         sweep: s,
@@ -493,24 +384,14 @@ fn compute_chart(req: &Request) -> ChartData {
                 Ok(c) => c,
                 Err(e) => return ChartData::Failed(e.to_string()),
             };
-            let mut ev = colligo_core::models::Evaluator::new(lib, &comp, *model);
             let n = 100;
-            let pts = (0..=n)
-                .map(|i| {
-                    let tc = from_c + (to_c - from_c) * f64::from(i) / f64::from(n);
-                    let tk = tc + T_ZERO_C;
-                    let aw = ev
-                        .ln_aw(
-                            tk,
-                            comp.water_kg,
-                            &colligo_core::models::CapMode::Equilibrium,
-                        )
-                        .exp();
-                    let p = water::p_sat_liquid(tk);
-                    (tc, aw * p, p)
-                })
+            let temps: Vec<f64> = (0..=n)
+                .map(|i| from_c + (to_c - from_c) * f64::from(i) / f64::from(n))
                 .collect();
-            ChartData::VaporPressure(pts)
+            match properties::vapor_pressure_curve(lib, &comp, *model, &temps) {
+                Ok(pts) => ChartData::VaporPressure(pts),
+                Err(e) => ChartData::Failed(e.to_string()),
+            }
         }
     }
 }
@@ -520,7 +401,7 @@ pub fn chart_now(
     lib: &Arc<Library>,
     formula: &Formula,
     cond: &Conditions,
-    model: ModelId,
+    model: ModelChoice,
     job: ChartJob,
 ) -> ChartData {
     compute_chart(&Request {
@@ -588,8 +469,8 @@ pub fn chart_csv(d: &ChartData) -> String {
                 s,
                 "temperature_c,formula_vapor_pressure_pa,water_vapor_pressure_pa"
             );
-            for (t, p, w) in pts {
-                let _ = writeln!(s, "{t},{p},{w}");
+            for p in pts {
+                let _ = writeln!(s, "{},{},{}", p.temperature_c, p.formula_pa, p.water_pa);
             }
         }
         ChartData::Failed(e) => {
@@ -623,7 +504,7 @@ mod tests {
             },
         ];
         for job in jobs {
-            let d = chart_now(&lib, &f, &cond, ModelId::Auto, job.clone());
+            let d = chart_now(&lib, &f, &cond, ModelChoice::Auto, job.clone());
             assert!(!matches!(d, ChartData::Failed(_)), "{job:?}: {d:?}");
             let csv = chart_csv(&d);
             let rows = csv.lines().count();
@@ -635,7 +516,7 @@ mod tests {
             &lib,
             &f,
             &cond,
-            ModelId::Auto,
+            ModelChoice::Auto,
             ChartJob::Freezing { to_c: -30.0 },
         ) {
             let f: Vec<f64> = c.points.iter().map(|p| p.ice_fraction_of_water).collect();

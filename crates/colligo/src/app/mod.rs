@@ -328,7 +328,12 @@ impl WorkbenchApp {
                 egui::ScrollArea::vertical()
                     .id_salt("results-scroll")
                     .show(ui, |ui| {
-                        self.conditions_panel.ui(ui, &self.doc, &mut self.pending);
+                        self.conditions_panel.ui(
+                            ui,
+                            &self.doc,
+                            self.eval.as_ref(),
+                            &mut self.pending,
+                        );
                         ui.separator();
                         self.results_panel.ui(ui, &self.doc, self.eval.as_ref());
                         ui.separator();

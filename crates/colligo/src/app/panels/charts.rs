@@ -388,8 +388,14 @@ impl ChartsPanel {
                     });
             }
             ChartData::VaporPressure(pts) => {
-                let f: Vec<[f64; 2]> = pts.iter().map(|(t, p, _)| [*t, *p / 1000.0]).collect();
-                let w: Vec<[f64; 2]> = pts.iter().map(|(t, _, p)| [*t, *p / 1000.0]).collect();
+                let f: Vec<[f64; 2]> = pts
+                    .iter()
+                    .map(|p| [p.temperature_c, p.formula_pa / 1000.0])
+                    .collect();
+                let w: Vec<[f64; 2]> = pts
+                    .iter()
+                    .map(|p| [p.temperature_c, p.water_pa / 1000.0])
+                    .collect();
                 let t_now = doc.project.conditions.temperature_c;
                 let p_now = eval
                     .and_then(|e| e.props.as_ref().ok())

@@ -1,14 +1,15 @@
 //! Conditions: product temperature, pressure or altitude for the boiling
 //! point, storage temperature for the ice fraction, and the model.
 
-use colligo_core::models::{ModelId, auto_choice};
-use colligo_core::project::ProductKind;
+use colligo_core::library::Audience;
+use colligo_core::models::ModelChoice;
 use colligo_core::quantity::{
     PressureUnit, TemperatureUnit, parse_pressure, parse_temperature, trim_float,
 };
 use egui::{RichText, TextEdit};
 
 use crate::app::commands::Command;
+use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::theme;
 
@@ -62,7 +63,13 @@ fn show_pressure(pa: f64, u: PressureUnit) -> String {
 
 impl ConditionsPanel {
     /// Shows the panel.
-    pub fn ui(&mut self, ui: &mut egui::Ui, doc: &Document, out: &mut Vec<Command>) {
+    pub fn ui(
+        &mut self,
+        ui: &mut egui::Ui,
+        doc: &Document,
+        eval: Option<&Evaluation>,
+        out: &mut Vec<Command>,
+    ) {
         let c = doc.project.conditions.to_conditions();
         let units = doc.project.units;
         self.temperature
@@ -120,7 +127,7 @@ impl ConditionsPanel {
                     .selected_text(m.title())
                     .width(250.0)
                     .show_ui(ui, |ui| {
-                        for cand in ModelId::ALL {
+                        for cand in ModelChoice::ALL {
                             ui.selectable_value(&mut m, cand, cand.title());
                         }
                     })
@@ -131,14 +138,11 @@ impl ConditionsPanel {
                 }
                 ui.end_row();
                 ui.label("");
-                if doc.project.model == ModelId::Auto {
-                    let why = doc
-                        .formula()
-                        .composition(&doc.lib)
-                        .map(|c| {
-                            let (m, why) = auto_choice(&doc.lib, &c);
-                            format!("auto uses {m}: {why}")
-                        })
+                if doc.project.model == ModelChoice::Auto {
+                    // What the last evaluation resolved `auto` to.
+                    let why = eval
+                        .and_then(|e| e.props.as_ref().ok())
+                        .map(|p| format!("auto uses {}: {}", p.model, p.model_reason))
                         .unwrap_or_default();
                     ui.label(RichText::new(why).small().color(theme::MUTED));
                 }
@@ -176,8 +180,8 @@ impl ConditionsPanel {
             }
             ui.add_space(10.0);
             let mut p = doc.project.product;
-            ui.selectable_value(&mut p, ProductKind::Food, "Food");
-            ui.selectable_value(&mut p, ProductKind::Cosmetic, "Cosmetic");
+            ui.selectable_value(&mut p, Audience::Food, "Food");
+            ui.selectable_value(&mut p, Audience::Cosmetic, "Cosmetic");
             if p != doc.project.product {
                 out.push(Command::SetProduct(p));
             }

@@ -118,7 +118,7 @@ impl ResultsPanel {
                         ui.label(name).on_hover_text(m.model.title());
                         match &m.water_activity {
                             Ok(a) => ui.label(format!("{a:.4}")),
-                            Err(e) => ui.label(RichText::new(e).color(theme::ERROR)),
+                            Err(e) => ui.label(RichText::new(e.to_string()).color(theme::ERROR)),
                         };
                         ui.label(m.freezing_point_c.map_or("—".into(), |c| t_text(c, units.temperature)));
                         ui.end_row();

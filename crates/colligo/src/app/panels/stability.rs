@@ -2,29 +2,13 @@
 //! growth limits and regulatory cut-offs relevant to the product kind,
 //! each with its source, and the usual cautions.
 
+use colligo_core::guidance::{Nearest, lines_for, nearest};
 use colligo_core::library::{Audience, ThresholdKind, ThresholdRecord};
-use colligo_core::project::ProductKind;
 use egui::{Color32, FontId, Pos2, Rect, RichText, Sense, Stroke, Ui, vec2};
 
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::theme;
-
-/// The lines shown for a product kind, highest a_w first.
-pub fn lines_for(doc: &Document, kind: ProductKind) -> Vec<&ThresholdRecord> {
-    let audience = match kind {
-        ProductKind::Food => Audience::Food,
-        ProductKind::Cosmetic => Audience::Cosmetic,
-    };
-    let mut v: Vec<&ThresholdRecord> = doc
-        .lib
-        .thresholds
-        .iter()
-        .filter(|t| t.audience.contains(&audience))
-        .collect();
-    v.sort_by(|a, b| b.water_activity.total_cmp(&a.water_activity));
-    v
-}
 
 /// The stability panel.
 #[derive(Debug, Default)]
@@ -41,8 +25,8 @@ impl StabilityPanel {
             ui.heading("Stability guidance");
             ui.label(
                 RichText::new(match kind {
-                    ProductKind::Food => "food lines",
-                    ProductKind::Cosmetic => "cosmetic lines",
+                    Audience::Food => "food lines",
+                    Audience::Cosmetic => "cosmetic lines",
                 })
                 .color(theme::MUTED),
             );
@@ -50,7 +34,7 @@ impl StabilityPanel {
         let aw = eval
             .and_then(|e| e.props.as_ref().ok())
             .map(|p| p.water_activity);
-        let lines = lines_for(doc, kind);
+        let lines = lines_for(&doc.lib, kind);
         egui::CollapsingHeader::new(format!("{} guidance lines", lines.len()))
             .id_salt("stability-list")
             .default_open(self.show_list)
@@ -103,18 +87,11 @@ impl StabilityPanel {
 /// and the model band.
 pub fn scale_for(ui: &mut Ui, doc: &Document, eval: &Evaluation) {
     let aw = eval.props.as_ref().ok().map(|p| p.water_activity);
-    let lines = lines_for(doc, doc.project.product);
+    let lines = lines_for(&doc.lib, doc.project.product);
     scale(ui, &lines, aw, eval.band);
     if let Some(a) = aw {
         // The nearest lines on either side, named.
-        let below = lines
-            .iter()
-            .filter(|t| t.water_activity <= a)
-            .max_by(|x, y| x.water_activity.total_cmp(&y.water_activity));
-        let above = lines
-            .iter()
-            .filter(|t| t.water_activity > a)
-            .min_by(|x, y| x.water_activity.total_cmp(&y.water_activity));
+        let Nearest { below, above } = nearest(&lines, a);
         let text = match (below, above) {
             (Some(b), Some(u)) => format!(
                 "{a:.3} lies above “{}” ({:.3}) and below “{}” ({:.3})",
