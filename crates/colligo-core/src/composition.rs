@@ -63,11 +63,6 @@ impl Composition {
         self.water_kg + self.insoluble_kg + self.solutes.iter().map(|s| s.kg).sum::<f64>()
     }
 
-    /// Dissolvable solids, kg.
-    pub fn solute_kg(&self) -> f64 {
-        self.solutes.iter().map(|s| s.kg).sum()
-    }
-
     /// A copy with `solute` set to `mol` (added if absent).
     pub fn with_solute_mol(&self, lib: &Library, solute: SoluteIdx, mol: f64) -> Self {
         let mut c = self.clone();

@@ -123,14 +123,23 @@ pub enum ModelError {
         /// Why.
         source: SolverError,
     },
-    /// A property does not exist for this formula (e.g. no freezing point
-    /// when the whole solution vitrifies before ice forms).
-    #[error("{property}: {reason}")]
-    Undefined {
-        /// Which property.
-        property: &'static str,
-        /// Why.
-        reason: String,
+    /// No ice forms above the coldest temperature searched.
+    #[error("freezing point: no ice forms above {min_c:.0} °C")]
+    NoFreezingPoint {
+        /// Coldest temperature searched, °C.
+        min_c: f64,
+    },
+    /// The solution does not boil below the hottest temperature searched.
+    #[error("boiling point: the solution does not boil below {max_c:.0} °C at this pressure")]
+    NoBoilingPoint {
+        /// Hottest temperature searched, °C.
+        max_c: f64,
+    },
+    /// An ambient pressure that no evaluation can use.
+    #[error("pressure: {pa} Pa is not a usable ambient pressure")]
+    UnusablePressure {
+        /// The pressure, Pa.
+        pa: f64,
     },
 }
 

@@ -126,7 +126,7 @@ impl Default for Project {
             units: UnitPrefs::default(),
             variants: vec![Formula::new(
                 "Variant 1",
-                vec![crate::formula::Line::grams("water", 100.0)],
+                vec![crate::formula::Line::grams(crate::library::WATER_ID, 100.0)],
             )],
             active_variant: 0,
             user_solutes: Vec::new(),

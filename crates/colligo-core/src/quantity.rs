@@ -1,12 +1,13 @@
 //! Reading and writing the quantities users type: masses, percentages,
 //! temperatures, pressures and altitudes.
 //!
-//! Typed values are converted once, here, to SI `f64` (kg, K, Pa) for the
-//! computation, and to `uom` quantities at the public API where wanted.
+//! Typed values are converted once, here, to SI `f64` (kg, K, Pa); every
+//! field and parameter after that names its unit (`temperature_k`,
+//! `pressure_pa`). The conversion factors are the exact definitions
+//! (avoirdupois pound 0.453 592 37 kg; standard atmosphere 101 325 Pa;
+//! conventional millimetre of mercury 133.322 387 415 Pa).
 
 use serde::{Deserialize, Serialize};
-use uom::si::f64::{Mass, Pressure, ThermodynamicTemperature};
-use uom::si::{mass, pressure, thermodynamic_temperature};
 
 use crate::error::FormulaError;
 use crate::water::T_ZERO_C;
@@ -99,11 +100,6 @@ impl Amount {
     /// Mass in kg, or None for a percentage.
     pub fn kg(&self) -> Option<f64> {
         self.unit.kg_per_unit().map(|k| k * self.value)
-    }
-
-    /// As a `uom` mass (None for a percentage).
-    pub fn mass(&self) -> Option<Mass> {
-        self.kg().map(Mass::new::<mass::kilogram>)
     }
 
     /// Text such as `50 g` or `12.5 %`.
@@ -242,14 +238,6 @@ impl TemperatureUnit {
             TemperatureUnit::Celsius => k - T_ZERO_C,
             TemperatureUnit::Fahrenheit => (k - T_ZERO_C) * 9.0 / 5.0 + 32.0,
             TemperatureUnit::Kelvin => k,
-        }
-    }
-
-    /// A temperature difference in this unit from kelvin.
-    pub fn interval_from_kelvin(self, dk: f64) -> f64 {
-        match self {
-            TemperatureUnit::Fahrenheit => dk * 9.0 / 5.0,
-            _ => dk,
         }
     }
 }
@@ -395,16 +383,6 @@ fn altitude(h: f64) -> Result<f64, String> {
     } else {
         Err("altitude must be between −500 and 11 000 m".into())
     }
-}
-
-/// Kelvin to a `uom` temperature.
-pub fn temperature(k: f64) -> ThermodynamicTemperature {
-    ThermodynamicTemperature::new::<thermodynamic_temperature::kelvin>(k)
-}
-
-/// Pa to a `uom` pressure.
-pub fn pressure_of(pa: f64) -> Pressure {
-    Pressure::new::<pressure::pascal>(pa)
 }
 
 #[cfg(test)]

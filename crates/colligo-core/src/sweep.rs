@@ -101,33 +101,31 @@ pub fn quick_sweeps(
             .map(|(id, a)| quick_sweep(lib, formula, id, a, model, t_k, with_freezing))
             .collect();
     }
-    let mut out: Vec<Option<Result<QuickSweep, SweepError>>> =
-        (0..sweeps.len()).map(|_| None).collect();
+    // Contiguous chunks of the jobs, one scoped thread each; results come
+    // back in order through the join handles.
+    let per = sweeps.len().div_ceil(workers);
     std::thread::scope(|scope| {
-        let chunks: Vec<_> = out
-            .chunks_mut(sweeps.len().div_ceil(workers))
-            .enumerate()
-            .collect();
-        let per = sweeps.len().div_ceil(workers);
-        for (k, chunk) in chunks {
-            scope.spawn(move || {
-                for (j, slot) in chunk.iter_mut().enumerate() {
-                    let (id, a) = &sweeps[k * per + j];
-                    *slot = Some(quick_sweep(lib, formula, id, a, model, t_k, with_freezing));
-                }
-            });
-        }
-    });
-    out.into_iter()
-        .map(|r| {
-            r.unwrap_or_else(|| {
-                Err(SweepError::Model(ModelError::Undefined {
-                    property: "sweep",
-                    reason: "not run".into(),
-                }))
+        let handles: Vec<_> = sweeps
+            .chunks(per)
+            .map(|chunk| {
+                scope.spawn(move || {
+                    chunk
+                        .iter()
+                        .map(|(id, a)| quick_sweep(lib, formula, id, a, model, t_k, with_freezing))
+                        .collect::<Vec<_>>()
+                })
             })
-        })
-        .collect()
+            .collect();
+        let mut out = Vec::with_capacity(sweeps.len());
+        for h in handles {
+            match h.join() {
+                Ok(results) => out.extend(results),
+                // A sweep that panicked is a bug; let it surface as one.
+                Err(payload) => std::panic::resume_unwind(payload),
+            }
+        }
+        out.into_iter().collect()
+    })
 }
 
 /// a_w and freezing point along a sweep (the fast path behind the plots).

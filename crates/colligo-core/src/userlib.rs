@@ -13,7 +13,7 @@ use std::path::Path;
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::ProjectError;
+use crate::error::{LibraryError, ProjectError};
 use crate::library::{IngredientRecord, Library, SoluteRecord};
 use crate::project::write_atomic;
 
@@ -68,10 +68,10 @@ impl UserLibrary {
                 supported: USER_LIBRARY_VERSION,
             });
         }
-        lib.check(base).map_err(|message| ProjectError::Invalid {
+        lib.check(base).map_err(|e| ProjectError::Invalid {
             path: shown,
             field: "solutes / ingredients".into(),
-            message,
+            message: e.to_string(),
         })?;
         Ok(lib)
     }
@@ -80,14 +80,13 @@ impl UserLibrary {
     ///
     /// # Errors
     /// The first record that does not fit.
-    pub fn check(&self, base: &Library) -> Result<(), String> {
+    pub fn check(&self, base: &Library) -> Result<(), LibraryError> {
         let mut lib = base.clone();
         for s in &self.solutes {
-            lib.add_user_solute(s.clone()).map_err(|e| e.to_string())?;
+            lib.add_user_solute(s.clone())?;
         }
         for i in &self.ingredients {
-            lib.add_ingredient(i.clone(), true)
-                .map_err(|e| e.to_string())?;
+            lib.add_ingredient(i.clone(), true)?;
         }
         Ok(())
     }

@@ -10,7 +10,6 @@ pub use records::*;
 
 use crate::error::LibraryError;
 use crate::tfun::TempFn;
-use crate::water::M_W;
 
 /// Index of a solute in [`Library::solutes`].
 pub type SoluteIdx = usize;
@@ -686,11 +685,6 @@ impl Library {
             })
     }
 
-    /// Ion by id.
-    pub fn ion(&self, id: &str) -> Option<IonIdx> {
-        self.ion_index.get(id).copied()
-    }
-
     /// Source by key.
     pub fn source(&self, key: &str) -> Option<&SourceRecord> {
         self.source_index.get(key).map(|&i| &self.sources[i])
@@ -740,11 +734,6 @@ impl Library {
             .take(3)
             .map(|(_, id)| id.to_string())
             .collect()
-    }
-
-    /// Molar mass of water, kg/mol, for convenience at call sites.
-    pub fn water_molar_mass(&self) -> f64 {
-        M_W
     }
 }
 

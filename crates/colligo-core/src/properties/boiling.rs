@@ -70,9 +70,8 @@ pub fn boiling_point(
         },
     ) {
         Ok(root) => Ok(root.x),
-        Err(SolverError::NoBracket { .. }) => Err(ModelError::Undefined {
-            property: "boiling point",
-            reason: "the solution does not boil below 200 °C at this pressure".into(),
+        Err(SolverError::NoBracket { .. }) => Err(ModelError::NoBoilingPoint {
+            max_c: T_BOIL_MAX - water::T_ZERO_C,
         }),
         Err(e) => Err(ModelError::Solver {
             property: "boiling point",

@@ -44,7 +44,7 @@ pub struct WarmStart {
 /// the amounts dissolved at the product temperature.
 ///
 /// # Errors
-/// [`ModelError::Undefined`] when no ice forms above −60 °C; solver errors.
+/// [`ModelError::NoFreezingPoint`] when no ice forms above −60 °C; solver errors.
 pub fn freezing_point(
     ev: &mut Evaluator<'_>,
     before: &[f64],
@@ -87,9 +87,8 @@ pub fn freezing_point_with(
     };
     match solve_warm(&mut g, T_FREEZE_MIN, T_ZERO_C, x0, slope, opts) {
         Ok(root) => Ok(root.x),
-        Err(SolverError::NoBracket { .. }) => Err(ModelError::Undefined {
-            property: "freezing point",
-            reason: "no ice forms above −60 °C".into(),
+        Err(SolverError::NoBracket { .. }) => Err(ModelError::NoFreezingPoint {
+            min_c: T_FREEZE_MIN - T_ZERO_C,
         }),
         Err(e) => Err(ModelError::Solver {
             property: "freezing point",

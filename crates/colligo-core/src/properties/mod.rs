@@ -186,9 +186,8 @@ pub fn evaluate(
         return Err(ModelError::NoWater);
     }
     if !(cond.pressure_pa.is_finite() && cond.pressure_pa > 1000.0) {
-        return Err(ModelError::Undefined {
-            property: "pressure",
-            reason: format!("{} Pa is not a usable ambient pressure", cond.pressure_pa),
+        return Err(ModelError::UnusablePressure {
+            pa: cond.pressure_pa,
         });
     }
     let resolution = model.resolve(lib, comp);
@@ -210,18 +209,18 @@ pub fn evaluate(
     let mut dissolved_kg = 0.0;
     for (i, c) in sol.solutes.iter().enumerate() {
         let s = &lib.solutes[c.solute];
-        let m_kg = comp
+        let molar_mass_kg_per_mol = comp
             .solutes
             .iter()
             .find(|a| a.solute == c.solute)
             .map_or(0.0, |a| a.kg / a.mol);
-        let d_kg = dissolved[i] * m_kg;
+        let d_kg = dissolved[i] * molar_mass_kg_per_mol;
         dissolved_kg += d_kg;
         solutes.push(SoluteReport {
             id: s.id().to_string(),
             name: s.name().to_string(),
             dissolved_g: d_kg * 1000.0,
-            undissolved_g: (c.total_mol - dissolved[i]).max(0.0) * m_kg * 1000.0,
+            undissolved_g: (c.total_mol - dissolved[i]).max(0.0) * molar_mass_kg_per_mol * 1000.0,
             molality_mol_per_kg: dissolved[i] / w,
             ln_aw_share: shares[i],
         });

@@ -3,6 +3,7 @@
 //! keyboard shortcut carry their text, tooltip and shortcut here, so menus,
 //! tooltips and key handling agree.
 
+use colligo_core::library::WATER_ID;
 use std::path::PathBuf;
 
 use colligo_core::formula::{Formula, Line};
@@ -313,7 +314,7 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
             let name = unique_name(doc, "Variant");
             doc.project
                 .variants
-                .push(Formula::new(&name, vec![Line::grams("water", 100.0)]));
+                .push(Formula::new(&name, vec![Line::grams(WATER_ID, 100.0)]));
             doc.project.active_variant = doc.project.variants.len() - 1;
         }
         Command::DuplicateVariant(i) => {

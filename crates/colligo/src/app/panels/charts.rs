@@ -1,6 +1,7 @@
 //! Charts: one ingredient varied; every ingredient's a_w lowering per gram;
 //! the freezing curve; vapour pressure against temperature.
 
+use colligo_core::library::WATER_ID;
 use egui::RichText;
 use egui_plot::{HoverPosition, Legend, Line, Plot, PlotPoint, PlotPoints, Points, VLine};
 
@@ -95,7 +96,7 @@ impl ChartsPanel {
             ChartTab::Sweep => {
                 let id = self.sweep_id(doc)?;
                 let cur = resolved.kg_of(f, &id) * 1000.0;
-                let (from_g, to_g) = if id == "water" {
+                let (from_g, to_g) = if id == WATER_ID {
                     (0.5 * cur, 1.5 * cur.max(1.0))
                 } else {
                     (0.0, (2.0 * cur).max(0.1 * batch_g).max(1.0))
@@ -127,7 +128,7 @@ impl ChartsPanel {
             _ => f
                 .lines
                 .iter()
-                .find(|l| l.ingredient != "water")
+                .find(|l| l.ingredient != WATER_ID)
                 .or(f.lines.first())
                 .map(|l| l.ingredient.clone()),
         }

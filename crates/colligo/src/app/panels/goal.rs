@@ -3,6 +3,7 @@
 //! value. The answer is shown before it is applied.
 
 use colligo_core::goal::{GoalError, Target, goal_seek};
+use colligo_core::library::WATER_ID;
 use colligo_core::quantity::{AmountUnit, trim_float};
 use colligo_core::water::T_ZERO_C;
 use egui::{RichText, TextEdit};
@@ -93,7 +94,7 @@ impl GoalDialog {
                 .formula()
                 .lines
                 .iter()
-                .find(|l| l.ingredient != "water")
+                .find(|l| l.ingredient != WATER_ID)
                 .map(|l| l.ingredient.clone())
                 .unwrap_or_default();
         }
