@@ -48,6 +48,15 @@ pub enum LibraryError {
     },
 }
 
+/// A whole number with a typographic minus sign (−60, not -60).
+pub(crate) fn signed(v: f64) -> String {
+    if v < 0.0 {
+        format!("−{:.0}", -v)
+    } else {
+        format!("{v:.0}")
+    }
+}
+
 pub(crate) fn suggest_text(s: &[String]) -> String {
     if s.is_empty() {
         String::new()
@@ -124,7 +133,7 @@ pub enum ModelError {
         source: SolverError,
     },
     /// No ice forms above the coldest temperature searched.
-    #[error("freezing point: no ice forms above {min_c:.0} °C")]
+    #[error("freezing point: no ice forms above {} °C", signed(*.min_c))]
     NoFreezingPoint {
         /// Coldest temperature searched, °C.
         min_c: f64,

@@ -290,8 +290,8 @@ impl Project {
                     field.into(),
                     format!(
                         "{v} {unit} is outside {} to {} {unit}",
-                        fmt_limit(range.0),
-                        fmt_limit(range.1)
+                        crate::error::signed(range.0),
+                        crate::error::signed(range.1)
                     ),
                 ));
             }
@@ -384,13 +384,4 @@ pub fn write_atomic(path: &Path, bytes: &[u8]) -> Result<(), ProjectError> {
         let _ = std::fs::remove_file(&tmp);
     }
     result.map_err(io)
-}
-
-/// A range end as written in messages: −60, not -60.
-fn fmt_limit(v: f64) -> String {
-    if v < 0.0 {
-        format!("−{}", -v)
-    } else {
-        format!("{v}")
-    }
 }
