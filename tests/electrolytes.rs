@@ -31,10 +31,10 @@ fn particles(lib: &Library, ids: &str, molalities: &[f64]) -> f64 {
 }
 
 /// Osmotic coefficients and a_w of single and mixed salts: Archer (1992),
-/// Archer (1999), Møller (1988) and Harvie, Møller & Weare (1984) as
-/// computed by pytzer 0.6.0, and Pitzer (1991) values, against our Pitzer
-/// implementation (no solubility cap: the tables include supersaturated
-/// points).
+/// Archer (1999), Holmes & Mesmer (1986), Møller (1988) and Harvie, Møller &
+/// Weare (1984) as computed by pytzer 0.6.0, and Pitzer (1991) values,
+/// against our Pitzer implementation (no solubility cap: the tables include
+/// supersaturated points).
 #[test]
 fn osmotic_coefficients() {
     let lib = library();
@@ -73,10 +73,19 @@ fn osmotic_coefficients() {
 /// Tolerances (φ, a_w) by what the reference row computed.
 fn tolerances(r: &Row) -> (&'static str, f64, f64) {
     let src = r.source();
-    if src.contains("HMW84 set") || src.contains("bC_Ca_Cl_M88") || src.contains("Robinson") {
+    if src.contains("HMW84 set")
+        || src.contains("M88 set")
+        || src.contains("bC_Ca_Cl_M88")
+        || src.contains("Robinson")
+    {
         // A different published parameter set (Harvie, Møller & Weare 1984;
         // Møller 1988) or a handbook table: the spread between independent
-        // Pitzer sets, up to 7e-3 in φ at 5 mol/kg ionic strength.
+        // Pitzer sets, up to 7e-3 in φ at 5 mol/kg ionic strength. Na2SO4
+        // (Holmes & Mesmer 1986 here, Møller 1988 there) is compared only
+        // below its solubility, where the two sets differ by up to 9e-3 in φ
+        // (0.3 mol/kg at 0 °C); a set whose φ(T) is wrong, such as the
+        // Hovey, Pitzer & Rard (1993) set as transcribed in pytzer, misses
+        // these rows by 0.05 in φ and 5e-3 in a_w.
         ("independent parameter sets", 1e-2, 1.5e-3)
     } else if src.contains("linear blend") {
         // The same parameter set and A_φ as ours, evaluated by pytzer: an

@@ -39,8 +39,12 @@ fn mixing_rules_against_pitzer_mixtures() {
         };
         // ZSR holds within about 1e-3 in a_w for common-ion chloride
         // mixtures to 3 mol/kg (Stokes & Robinson 1966; Robinson & Stokes,
-        // Electrolyte Solutions, ch. 15): 2e-3.
-        zsr.compare(&r, &label, aw(Model::Zsr), want, Tol::Abs(2e-3));
+        // Electrolyte Solutions, ch. 15): 2e-3. NaCl + Na2SO4 mixes a 1-1
+        // with a 1-2 salt: ZSR leaves out the θ(Cl, SO4), ψ and
+        // unsymmetrical Eθ terms of the Pitzer mixture, worth 2e-3 in a_w
+        // at I = 3.5 mol/kg and 50 °C in these rows: 3e-3 there.
+        let tol = if sys.contains("sulfate") { 3e-3 } else { 2e-3 };
+        zsr.compare(&r, &label, aw(Model::Zsr), want, Tol::Abs(tol));
         // Ross's rule neglects solute–solute interactions; reported only,
         // to show why `auto` uses ZSR for mixtures.
         ross_worst = ross_worst.max((aw(Model::Ross) - want).abs());

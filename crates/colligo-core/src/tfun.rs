@@ -63,6 +63,14 @@ pub enum TempFn {
         /// Coefficient of ln(T/T_r).
         c: f64,
     },
+    /// Holmes & Mesmer (1986), J. Solution Chem. 15:495, eq. 8, T_r = 298.15 K,
+    /// as transcribed in pytzer 0.6.0 (`HM86_eq8`, which corrects a misprint
+    /// in the sixth term):
+    /// `a1 + a2 (T_r − T_r²/T) + a3 (T² + 2T_r³/T − 3T_r²) + a4 (T + T_r²/T − 2T_r)
+    ///  + a5 (ln(T/T_r) + T_r/T − 1) + a6 [1/(T − 263) + (263 T − T_r²)/(T (T_r − 263)²)]
+    ///  + a7 [1/(680 − T) + (T_r² − 680 T)/(T (680 − T_r)²)]`.
+    /// Every term but `a1` vanishes at T_r.
+    HolmesMesmer1986(Vec<f64>),
 }
 
 impl TempFn {
@@ -100,6 +108,7 @@ impl TempFn {
             TempFn::Hovey1993 { t_ref_k, a, b, c } => {
                 a + b * (1.0 / t - 1.0 / t_ref_k) + c * (t / t_ref_k).ln()
             }
+            TempFn::HolmesMesmer1986(v) => holmes_mesmer1986_eq8(t, &coeffs::<7>(v)),
         }
     }
 
@@ -115,6 +124,7 @@ impl TempFn {
             TempFn::Moller1988(a) => ("Moller1988", 8, a.len()),
             TempFn::Archer1999(a) => ("Archer1999", 6, a.len()),
             TempFn::Spencer1990(a) => ("Spencer1990", 6, a.len()),
+            TempFn::HolmesMesmer1986(a) => ("HolmesMesmer1986", 7, a.len()),
             _ => return Ok(()),
         };
         if need == got {
@@ -134,6 +144,18 @@ pub fn moller1988_eq13(t: f64, a: &[f64; 8]) -> f64 {
         + a[5] * t * t
         + a[6] / (680.0 - t)
         + a[7] / (t - 227.0)
+}
+
+/// Holmes & Mesmer (1986) eq. 8 with coefficients `a`, T_r = 298.15 K.
+fn holmes_mesmer1986_eq8(t: f64, a: &[f64; 7]) -> f64 {
+    const TR: f64 = 298.15;
+    let tr2 = TR * TR;
+    a[0] + a[1] * (TR - tr2 / t)
+        + a[2] * (t * t + 2.0 * tr2 * TR / t - 3.0 * tr2)
+        + a[3] * (t + tr2 / t - 2.0 * TR)
+        + a[4] * ((t / TR).ln() + TR / t - 1.0)
+        + a[5] * (1.0 / (t - 263.0) + (263.0 * t - tr2) / (t * (TR - 263.0) * (TR - 263.0)))
+        + a[6] * (1.0 / (680.0 - t) + (tr2 - 680.0 * t) / (t * (680.0 - TR) * (680.0 - TR)))
 }
 
 /// The first `N` coefficients of `v`, zero-padded (lengths are checked
@@ -300,6 +322,21 @@ mod published_form_tests {
         close(f.eval(373.15, P_ATM), -0.01817403245113322);
     }
 
+    #[test]
+    fn holmes_mesmer1986_matches_pytzer_hm86() {
+        // pytzer 0.6.0 bC_K_SO4_HM86 beta1 (Holmes & Mesmer 1986, eq. 8): the
+        // one HM86 function in pytzer with the sixth, 1/(T − 263), term.
+        let f =
+            TempFn::HolmesMesmer1986(vec![0.6179, 6.85e-3, 5.576e-5, -5.841e-2, 0.0, -0.90, 0.0]);
+        assert!(f.check().is_ok());
+        close(f.eval(298.15, P_ATM), 0.6179);
+        close(f.eval(273.15, P_ATM), 0.3650688331374342);
+        close(f.eval(323.15, P_ATM), 0.7559291920145774);
+        close(f.eval(373.15, P_ATM), 0.9365466549445566);
+        // A short coefficient list is refused by the loader's check.
+        assert!(TempFn::HolmesMesmer1986(vec![0.6179]).check().is_err());
+    }
+
     fn builtin_pair(cation: &str, anion: &str) -> crate::library::records::PairRecord {
         let text = include_str!("../../../assets/pitzer.ron");
         let file: PitzerFile = ron::from_str(text).unwrap_or_else(|e| panic!("pitzer.ron: {e}"));
@@ -453,6 +490,8 @@ mod published_form_tests {
                 ),
             ],
         );
+        // bC_Na_SO4_HM86 (Holmes & Mesmer 1986); pytzer marks it valid from
+        // 298.15 K, the 273.15 K row checks the form's extrapolation only.
         check_pair(
             "Na+",
             "SO4-2",
@@ -460,17 +499,18 @@ mod published_form_tests {
                 (
                     273.15,
                     P_ATM,
-                    0.014856109842202833,
-                    0.8268308351613742,
-                    0.0026151763466901847,
+                    -0.07616656779668136,
+                    0.5503049429809143,
+                    0.008309724466261253,
                     0.0,
                 ),
+                (298.15, P_ATM, -0.01727, 0.7534, 0.004152484572518, 0.0),
                 (
                     373.15,
                     P_ATM,
-                    -0.01817403245113322,
-                    0.9879273537502988,
-                    0.0031713738408537173,
+                    0.047567545334224415,
+                    0.9925179007983753,
+                    -0.00024559849915936686,
                     0.0,
                 ),
             ],

@@ -88,7 +88,7 @@ BUILTIN_PAIRS = [
     ("K", "Cl", prm.bC_K_Cl_A99),
     ("Ca", "Cl", prm.bC_Ca_Cl_SP78),
     ("Mg", "Cl", prm.bC_Mg_Cl_SMW90),
-    ("Na", "SO4", prm.bC_Na_SO4_HPR93),
+    ("Na", "SO4", prm.bC_Na_SO4_HM86),
 ]
 # Mixing terms of Harvie, Moller & Weare (1984) for the cations Na, K, Ca, Mg with Cl
 # (the ones the three test mixtures need), as in assets/pitzer.ron.
@@ -109,6 +109,38 @@ HMW84_PAIRS = [
     ("K", "Cl", prm.bC_K_Cl_HMW84),
     ("Ca", "Cl", prm.bC_Ca_Cl_HMW84),
     ("Mg", "Cl", prm.bC_Mg_Cl_HMW84),
+]
+
+# NaCl + Na2SO4 mixtures (mol/kg NaCl; mol/kg Na2SO4) for the built-in set.
+SULFATE_MIXTURES = [
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 0.0),
+    (("sodium_chloride", "sodium_sulfate"), (2.0, 0.5), 0.0),
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 25.0),
+    (("sodium_chloride", "sodium_sulfate"), (0.5, 1.0), 25.0),
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 50.0),
+    (("sodium_chloride", "sodium_sulfate"), (2.0, 0.5), 50.0),
+    (("sodium_chloride", "sodium_sulfate"), (0.5, 1.0), 50.0),
+]
+# Moller (1988) pair and mixing functions (pytzer's transcription), an independent set.
+M88_PAIRS = [
+    ("Na", "Cl", prm.bC_Na_Cl_M88),
+    ("Na", "SO4", prm.bC_Na_SO4_M88),
+]
+M88_AA = [("Cl", "SO4", prm.theta_Cl_SO4_M88)]
+M88_CAA = [("Na", "Cl", "SO4", prm.psi_Na_Cl_SO4_M88)]
+# Rows checked against the M88 set: Na2SO4 below its solubility (see osmotic_rows).
+M88_CHECKS = [
+    (("sodium_sulfate",), (0.1,), 0.0),
+    (("sodium_sulfate",), (0.3,), 0.0),
+    (("sodium_sulfate",), (0.5,), 50.0),
+    (("sodium_sulfate",), (1.5,), 50.0),
+    (("sodium_sulfate",), (1.5,), 100.0),
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 0.0),
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 25.0),
+    (("sodium_chloride", "sodium_sulfate"), (0.5, 1.0), 25.0),
+    (("sodium_chloride", "sodium_sulfate"), (1.0, 0.25), 50.0),
+    (("sodium_chloride", "sodium_sulfate"), (2.0, 0.5), 50.0),
+    (("sodium_chloride", "sodium_sulfate"), (0.5, 1.0), 50.0),
 ]
 
 _current = {"lib": None, "pz": pz}
@@ -170,7 +202,7 @@ def osmotic_rows():
         ("potassium_chloride", prm.bC_K_Cl_A99, (0.0, 50.0, 100.0), (0.1, 1, 3)),
         ("calcium_chloride", prm.bC_Ca_Cl_SP78, (0.0, 25.0, 50.0), (1, 2)),
         ("magnesium_chloride", prm.bC_Mg_Cl_SMW90, (-10.0, 25.0), (1, 3)),
-        ("sodium_sulfate", prm.bC_Na_SO4_HPR93, (25.0,), (0.5, 1.5)),
+        ("sodium_sulfate", prm.bC_Na_SO4_HM86, (0.0, 25.0, 50.0, 100.0), (0.1, 0.5, 1, 1.5, 3)),
     ]
     for sid, fn, temps, ms in series:
         ions = list(IONS[sid])
@@ -199,6 +231,17 @@ def osmotic_rows():
         rows.append((system, ms, tc, phi, aw,
                      "pytzer 0.6.0, %s; %s; Harvie J; A_phi %s" % (names, mix, aphi_core.__name__),
                      "Lib"))
+    # 3b) NaCl + Na2SO4 with the built-in set: the Cl-SO4 theta and the Na-Cl-SO4 psi
+    #     of HMW84 (constants, as in assets/pitzer.ron).
+    lib = library("builtin-SO4", aphi_core, BUILTIN_PAIRS[:1] + BUILTIN_PAIRS[4:],
+                  aa=[("Cl", "SO4", prm.theta_Cl_SO4_HMW84)],
+                  caa=[("Na", "Cl", "SO4", prm.psi_Na_Cl_SO4_HMW84)])
+    names = ", ".join(f.__name__ for *_, f in BUILTIN_PAIRS[:1] + BUILTIN_PAIRS[4:])
+    for system, ms, tc in SULFATE_MIXTURES:
+        phi, aw = phi_aw(lib, system, ms, 273.15 + tc)
+        rows.append((system, ms, tc, phi, aw,
+                     "pytzer 0.6.0, %s; theta_Cl_SO4_HMW84, psi_Na_Cl_SO4_HMW84; Harvie J; A_phi %s"
+                     % (names, aphi_core.__name__), "Lib"))
     # 4) the same mixtures with the complete HMW84 parameter set (literature model).
     lib = library("HMW84", dh.Aosm_M88, HMW84_PAIRS, HMW84_CC, HMW84_CCA)
     names = ", ".join(f.__name__ for *_, f in HMW84_PAIRS)
@@ -209,6 +252,15 @@ def osmotic_rows():
         rows.append((system, ms, tc, phi, aw,
                      "pytzer 0.6.0, HMW84 set: %s; %s; Harvie J; A_phi Aosm_M88" % (names, mix),
                      "Lib"))
+    # 5) Na2SO4 and NaCl + Na2SO4 with Moller's (1988) complete set, an independent
+    #    parameter set (literature model), where Na2SO4 is below its solubility in the
+    #    library's table (0.33 mol/kg at 0 C; 3.3 mol/kg at 50 C; 3.0 mol/kg at 100 C).
+    lib = library("M88", dh.Aosm_M88, M88_PAIRS, aa=M88_AA, caa=M88_CAA)
+    names = ", ".join(f.__name__ for *_, f in M88_PAIRS + M88_AA + M88_CAA)
+    for system, ms, tc in M88_CHECKS:
+        phi, aw = phi_aw(lib, system, ms, 273.15 + tc)
+        rows.append((system, ms, tc, phi, aw,
+                     "pytzer 0.6.0, M88 set: %s; Harvie J; A_phi Aosm_M88" % names, "Lib"))
     return rows
 
 

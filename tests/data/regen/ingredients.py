@@ -7,7 +7,8 @@ Every number is either a literal read in (or recalled from) the source named
 beside it, or computed here from such literals: water of crystallisation from
 IUPAC 2021 atomic weights, the DP4+ molar mass of the glucose syrups from their
 nominal DE, NaCl from USDA sodium, and the milk-serum salts from the soluble
-fractions of Fox & McSweeney (1998), Table 5.6. The script also checks that each
+fractions of Fox & McSweeney (1998), Table 5.6, and the small non-protein-nitrogen
+molecules from their Table 4.7. The script also checks that each
 composition adds up to 100 g, that each syrup's computed DE equals its nominal
 DE, and prints the ideal (Raoult) freezing point of whole milk.
 
@@ -51,7 +52,7 @@ SOLUTE_FORMULA = {
     "sodium_sulfate": "Na2SO4", "sodium_acetate": "NaC2H3O2",
     "sodium_lactate": "NaC3H5O3", "calcium_lactate": "CaC6H10O6",
     "sodium_citrate": "Na3C6H5O7", "potassium_citrate": "K3C6H5O7",
-    "dipotassium_phosphate": "K2HPO4",
+    "dipotassium_phosphate": "K2HPO4", "urea": "CH4N2O", "glycine": "C2H5NO2",
 }
 
 
@@ -234,6 +235,8 @@ ingredient(
     synonyms=["sodium lactate 60%", "E325"])
 
 # ---------------------------------------------------------------- dairy
+# Lactose of cows' milk, g per 100 g: Fox & McSweeney (1998), Table 2.1.
+FOX_21_COW_LACTOSE = 4.8
 # Soluble part of milk salts: Fox & McSweeney (1998), Table 5.6 (after Davies &
 # White 1960 and others): concentration in milk, mg/L, and % in solution.
 FOX_56 = {"Na": (500, 0.92), "K": (1450, 0.92), "Cl": (1200, 1.00), "SO4": (100, 1.00),
@@ -309,32 +312,83 @@ SALT_NOTE = (
     "PO4) is under insoluble.other.")
 
 
+# Non-protein nitrogen of cows' milk: Fox & McSweeney (1998), Table 4.7, mg N per litre
+# (the milk of Table 5.6, whose K is 1450 mg/L). Urea is the principal component.
+FOX_47 = {"ammonia": 6.7, "urea": 83.8, "creatinine": 4.9, "creatine": 39.3, "uric acid": 22.8,
+          "alpha-amino N": 37.4, "unaccounted": 88.1}
+# USDA protein for milk is total nitrogen x 6.38 (from memory), so it includes this NPN.
+N_FACTOR_MILK = 6.38
+
+
+def milk_npn(K):
+    """Small NPN solutes (g per 100 g) from the ingredient's K (mg/100 g), and their N (g).
+
+    Table 4.7's urea N as urea (2 N per molecule) and its alpha-amino N (free amino acids,
+    glutamic acid predominating) as glycine (1 N), the library's amino acid; both scaled to
+    this ingredient's potassium like the anions of milk_salts.
+    """
+    kr = K / FOX_56["K"][0]
+    mmol = {"urea": kr * FOX_47["urea"] / (2 * ATOMIC["N"]),
+            "glycine": kr * FOX_47["alpha-amino N"] / ATOMIC["N"]}
+    grams = {s: n * M(s) / 1000 for s, n in mmol.items()}
+    n_g = kr * (FOX_47["urea"] + FOX_47["alpha-amino N"]) / 1000
+    return grams, n_g, sum(mmol.values())
+
+
+NPN_NOTE = (
+    "Non-protein nitrogen: urea N 83.8 and alpha-amino N 37.4 of the 283 mg N/L of Fox & McSweeney "
+    "(1998) Table 4.7, scaled to this ingredient's potassium (1450 mg K/L in Table 5.6), as urea and as "
+    "glycine (one N per molecule; it stands for the free amino acids, mostly glutamic acid); creatine, "
+    "creatinine and uric acid (about 1.5 mmol/L together), ammonia and the unaccounted NPN are left in "
+    "the protein. The protein is the source's (total N x 6.38, from "
+    "memory) less 6.38 x the N now counted as urea and glycine.")
+
+
 def dairy(id, name, src, at, tag, water, protein, fat, Na, K, Ca, Mg, sugars, carb, synonyms, extra_note,
-          sucrose=None, lactose_per_protein=None, notes=None):
+          sucrose=None, lactose_per_protein=None, lactose=None, lactose_note=None, notes=None):
     grams, coll, left, mm, particles = milk_salts(Na, K, Ca, Mg)
+    npn, npn_n, npn_mmol = milk_npn(K)
     salts = sum(grams.values())
-    if sucrose is None:
-        lactose = 100 - water - protein - fat - salts - coll
+    npn_g = sum(npn.values())
+    protein_true = protein - N_FACTOR_MILK * npn_n
+    other = coll
+    if sucrose is None and lactose is not None:
+        other = 100 - water - protein_true - fat - salts - npn_g - lactose
+        assert other >= 0, (id, other)
+        sugar_list = [("lactose", r(lactose))]
+        lac_note = (f"{lactose_note} The source gives {carb} g carbohydrate by difference (which also "
+                    f"holds the citrate now counted among the salts) and {sugars} g analysed total sugars; "
+                    f"with those sugars as lactose the entry would add up to "
+                    f"{r(100 - other + coll + sugars - lactose, 2)} g. insoluble.other "
+                    f"({r(other, 3)} g) closes the mass balance: it stands for the colloidal salts, "
+                    f"estimated below at {coll:.3f} g, less the {r(coll - other, 3)} g by which the other "
+                    "values overshoot 100 g; it has no bearing on a_w or freezing.")
+    elif sucrose is None:
+        lactose = 100 - water - protein_true - fat - salts - npn_g - coll
         sugar_list = [("lactose", r(lactose))]
         lac_note = (f"Lactose {r(lactose, 2)} g closes the mass balance; the source gives {carb} g "
                     f"carbohydrate by difference (which also holds the citrate now counted among the salts) "
                     f"and {sugars} g analysed total sugars.")
     else:
         lactose = protein * lactose_per_protein
-        suc = 100 - water - protein - fat - salts - coll - lactose
+        suc = 100 - water - protein_true - fat - salts - npn_g - coll - lactose
         sugar_list = [("lactose", r(lactose)), ("sucrose", r(suc))]
         lac_note = (f"Total sugars {sugars} g are lactose + added sucrose; lactose {r(lactose, 2)} g is the "
-                    f"milk's lactose/protein ratio ({lactose_per_protein:.3f}, from whole_milk) times the protein, "
-                    f"and sucrose {r(suc, 2)} g closes the mass balance.")
+                    f"milk's lactose/protein ratio ({lactose_per_protein:.3f}, from whole_milk, on the "
+                    f"source's protein) times the source's protein, and sucrose {r(suc, 2)} g closes the "
+                    "mass balance.")
     ingredient(
-        id, name, "Dairy", water, sugar_list + [(s, r(g)) for s, g in grams.items()],
+        id, name, "Dairy", water,
+        sugar_list + [(s, r(g)) for s, g in grams.items()] + [(s, r(g)) for s, g in npn.items()],
         cite(src, at, tag,
              f"{extra_note} Fat and protein are insoluble solids. {lac_note} {SALT_NOTE} Salts here: "
              + ", ".join(f"{s} {g:.4f} g" for s, g in grams.items())
              + f"; colloidal salts {coll:.3f} g. Ions left unpaired (mmol/100 g): "
-             + ", ".join(f"{i} {v:.3f}" for i, v in left.items() if abs(v) > 5e-4) + "."),
-        synonyms=synonyms, insoluble=dict(fat=fat, protein=protein, other=r(coll)), notes=notes)
-    return lactose, grams, particles, coll
+             + ", ".join(f"{i} {v:.3f}" for i, v in left.items() if abs(v) > 5e-4) + ". "
+             + NPN_NOTE + " Here: " + ", ".join(f"{s} {g:.4f} g" for s, g in npn.items())
+             + f"; protein {protein} - {r(N_FACTOR_MILK * npn_n, 4)} = {r(protein_true, 4)} g."),
+        synonyms=synonyms, insoluble=dict(fat=fat, protein=r(protein_true), other=r(other)), notes=notes)
+    return lactose, grams, particles + npn_mmol, coll
 
 
 lac_wm, g_wm, part_wm, _ = dairy(
@@ -345,8 +399,13 @@ lac_wm, g_wm, part_wm, _ = dairy(
     extra_note="Water 88.13, protein 3.15, fat 3.27, carbohydrate 4.78, total sugars 5.05, Na 43, K 132, "
                "Ca 113, Mg 10 mg read in a secondary copy of this USDA entry (Pub); its FDC id is not "
                "confirmed here.",
-    notes="Cows' milk freezes at about -0.52 °C (from memory); lactose alone accounts for a little over half of that depression.")
-LAC_PER_PROTEIN = lac_wm / 3.15
+    lactose=FOX_21_COW_LACTOSE,
+    lactose_note=f"Lactose {FOX_21_COW_LACTOSE} g is the lactose of cows' milk in Fox & McSweeney (1998) "
+                 "Table 2.1 (4.8 %; milk holds only traces of other sugars, their section 2.1).",
+    notes="Cows' milk freezes at -0.52 to -0.54 °C (common practice; a freezing point nearer 0 °C points to "
+          "added water). Lactose accounts for a little over half of the depression; lactose and chloride "
+          "for about 75 % (Henningson 1963).")
+LAC_PER_PROTEIN = lac_wm / 3.15  # on the source's (total N) protein
 
 dairy("skim_milk_powder", "Skim milk powder", "usda_fdc_sr_legacy",
       "FDC 170877 (SR Legacy, NDB 01091) 'Milk, dry, nonfat, regular, without added vitamin A and vitamin D', per 100 g",
@@ -653,11 +712,11 @@ if __name__ == "__main__":
     wm = next(i for i in ING if i["id"] == "whole_milk")
     lac = next(g for s, g, _ in wm["solutes"] if s == "lactose")
     osm_lac = lac / M("lactose") / wm["water"] * 1000
-    osm_salt = part_wm / wm["water"]  # mmol/g water = mol/kg
+    osm_salt = part_wm / wm["water"]  # mmol/g water = mol/kg (salts and NPN)
     kf = 1.8597  # K kg/mol, cryoscopic constant of water (CRC Handbook)
-    print(f"whole milk: lactose {lac:.3f} g -> {osm_lac:.4f} mol/kg; salts {osm_salt:.4f} osmol/kg (ideal); "
+    print(f"whole milk: lactose {lac:.3f} g -> {osm_lac:.4f} mol/kg; salts and NPN {osm_salt:.4f} osmol/kg (ideal); "
           f"Raoult-dilute freezing point ≈ -{kf * (osm_lac + osm_salt):.3f} °C "
-          f"(lactose alone -{kf * osm_lac:.3f} °C; with osmotic coefficient 0.90 on salts "
+          f"(lactose alone -{kf * osm_lac:.3f} °C; with osmotic coefficient 0.90 on salts and NPN "
           f"-{kf * (osm_lac + 0.9 * osm_salt):.3f} °C)")
     if MISSING:
         print("note: molar masses not yet in assets/solutes for: " + ", ".join(MISSING)
