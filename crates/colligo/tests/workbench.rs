@@ -4,7 +4,7 @@
 
 use std::path::PathBuf;
 
-use colligo::app::commands::Command;
+use colligo::app::commands::{Action, Edit};
 use colligo::app::{Modal, Startup, WorkbenchApp};
 use colligo_core::models::ModelChoice;
 use colligo_core::quantity::TemperatureUnit;
@@ -251,15 +251,15 @@ fn save_and_reopen_gives_the_same_document() {
     retype(&mut h, "Sucrose", "333");
     let path = dir.join("spread.ron");
     let ctx = h.ctx.clone();
-    h.state_mut().apply(&ctx, Command::SaveTo(path.clone()));
+    h.state_mut().apply(&ctx, Action::SaveTo(path.clone()));
     h.run();
     assert!(!h.state().doc.is_dirty());
     let saved = h.state().doc.project.clone();
     // Open something else, then the saved file again.
-    h.state_mut().apply(&ctx, Command::OpenSample(1));
+    h.state_mut().apply(&ctx, Action::OpenSample(1));
     h.run();
     assert_ne!(h.state().doc.project, saved);
-    h.state_mut().apply(&ctx, Command::OpenPath(path.clone()));
+    h.state_mut().apply(&ctx, Action::OpenPath(path.clone()));
     h.run();
     assert_eq!(h.state().doc.project, saved);
     assert_eq!(h.state().doc.path.as_deref(), Some(path.as_path()));
@@ -278,7 +278,7 @@ fn a_corrupt_file_shows_an_error_and_keeps_the_project() {
     .unwrap_or_else(|e| panic!("{e}"));
     let before = h.state().doc.project.clone();
     let ctx = h.ctx.clone();
-    h.state_mut().apply(&ctx, Command::OpenPath(bad));
+    h.state_mut().apply(&ctx, Action::OpenPath(bad));
     h.run();
     assert_eq!(h.state().doc.project, before);
     let status = h
@@ -556,7 +556,7 @@ fn variants_duplicate_rename_delete() {
 fn the_comparison_table_lists_every_variant() {
     let mut h = harness("compare");
     let ctx = h.ctx.clone();
-    h.state_mut().apply(&ctx, Command::NewVariant);
+    h.state_mut().apply(&ctx, Edit::NewVariant);
     h.run();
     h.get_by_label("Compare variants").click();
     h.run();
@@ -591,7 +591,7 @@ fn a_custom_solute_with_norrish_k_changes_aw_as_the_core_predicts() {
     let ctx = h.ctx.clone();
     h.state_mut().apply(
         &ctx,
-        Command::AddLine {
+        Edit::AddLine {
             ingredient: "test_polyol".into(),
             amount: 80.0,
             unit: colligo_core::quantity::AmountUnit::G,
@@ -663,19 +663,19 @@ fn a_custom_ingredient_survives_save_and_reopen() {
     let ctx = h.ctx.clone();
     h.state_mut().apply(
         &ctx,
-        Command::AddLine {
+        Edit::AddLine {
             ingredient: "house_syrup".into(),
             amount: 50.0,
             unit: colligo_core::quantity::AmountUnit::G,
         },
     );
     let path = dir.join("with_syrup.ron");
-    h.state_mut().apply(&ctx, Command::SaveTo(path.clone()));
+    h.state_mut().apply(&ctx, Action::SaveTo(path.clone()));
     h.run();
     let saved = h.state().doc.project.clone();
     let mut h2 = harness_in(data_dir("custom-reopen"));
     let ctx2 = h2.ctx.clone();
-    h2.state_mut().apply(&ctx2, Command::OpenPath(path));
+    h2.state_mut().apply(&ctx2, Action::OpenPath(path));
     h2.run();
     assert_eq!(h2.state().doc.project, saved);
     assert!(h2.state().doc.lib.ingredient("house_syrup").is_some());
@@ -698,7 +698,7 @@ fn the_user_library_exports_and_imports() {
     );
     // A fresh project has none of them, until imported.
     let ctx = h.ctx.clone();
-    h.state_mut().apply(&ctx, Command::OpenSample(2));
+    h.state_mut().apply(&ctx, Action::OpenSample(2));
     h.run();
     if h.query_by_label("Discard changes").is_some() {
         h.get_by_label("Discard changes").click();
@@ -765,7 +765,7 @@ fn chosen_units_carry_over_to_new_projects() {
     h.get_by_label("K").click();
     h.run();
     let ctx = h.ctx.clone();
-    h.state_mut().apply(&ctx, Command::NewProject);
+    h.state_mut().apply(&ctx, Action::NewProject);
     h.run();
     if h.query_by_label("Discard changes").is_some() {
         h.get_by_label("Discard changes").click();

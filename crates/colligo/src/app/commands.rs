@@ -1,42 +1,42 @@
 //! Every change a user makes goes through a [`Command`]: panels emit them,
-//! and one `match` applies them at the end of the frame. Commands with a
-//! keyboard shortcut carry their text, tooltip and shortcut here, so menus,
-//! tooltips and key handling agree.
-
-use colligo_core::library::WATER_ID;
-use std::path::PathBuf;
+//! and one `match` applies them at the end of the frame. A command is
+//! either an [`Edit`] of the document (applied by [`apply_edit`], undoable)
+//! or an [`Action`] on the window (files, undo, tools; in `actions.rs`, with
+//! their menu texts and shortcuts).
 
 use colligo_core::formula::{Formula, Line};
-use colligo_core::library::Audience;
-use colligo_core::library::{IngredientRecord, SoluteRecord};
+use colligo_core::library::{Audience, IngredientRecord, SoluteRecord, WATER_ID};
 use colligo_core::models::ModelChoice;
 use colligo_core::properties::Limits;
 use colligo_core::quantity::{AmountUnit, PressureUnit, TemperatureUnit};
-use egui::{Key, KeyboardShortcut, Modifiers};
 
+pub use super::actions::Action;
 use super::document::Document;
 
-/// A user action.
+/// Anything a user asks for.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Command {
-    /// Start a new project (asks about unsaved changes).
-    NewProject,
-    /// Choose a project file to open (asks about unsaved changes).
-    Open,
-    /// Open this file (asks about unsaved changes).
-    OpenPath(PathBuf),
-    /// Open one of the built-in sample projects.
-    OpenSample(usize),
-    /// Save to the current file, or ask for one.
-    Save,
-    /// Save under a new name.
-    SaveAs,
-    /// Save to this path.
-    SaveTo(PathBuf),
-    /// Undo the last change.
-    Undo,
-    /// Redo.
-    Redo,
+    /// Change the document.
+    Edit(Edit),
+    /// Act on the window (files, undo, tools).
+    Action(Action),
+}
+
+impl From<Edit> for Command {
+    fn from(e: Edit) -> Self {
+        Command::Edit(e)
+    }
+}
+
+impl From<Action> for Command {
+    fn from(a: Action) -> Self {
+        Command::Action(a)
+    }
+}
+
+/// A change to the document.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Edit {
     /// Add an ingredient line.
     AddLine {
         /// Ingredient id.
@@ -114,119 +114,14 @@ pub enum Command {
     RemoveUserRecord(String),
     /// Add (or replace, by id) the records of a user library file.
     ImportUserRecords(Box<colligo_core::userlib::UserLibrary>),
-    /// Quit (asks about unsaved changes).
-    Quit,
 }
 
-/// A command with a shortcut, shown in menus and tooltips.
-#[derive(Debug, Clone, Copy)]
-pub struct Shortcut {
-    /// The command's menu text.
-    pub text: &'static str,
-    /// Tooltip.
-    pub tooltip: &'static str,
-    /// The key combination.
-    pub keys: KeyboardShortcut,
-    /// Whether a focused text field takes this key instead.
-    pub text_field_takes_it: bool,
-}
-
-/// Shortcut commands, in menu order.
-pub fn shortcuts() -> [(Command, Shortcut); 6] {
-    let cmd = Modifiers::COMMAND;
-    let cmd_shift = Modifiers::COMMAND | Modifiers::SHIFT;
-    [
-        (
-            Command::NewProject,
-            Shortcut {
-                text: "New project",
-                tooltip: "Start an empty project",
-                keys: KeyboardShortcut::new(cmd, Key::N),
-                text_field_takes_it: false,
-            },
-        ),
-        (
-            Command::Open,
-            Shortcut {
-                text: "Open…",
-                tooltip: "Open a project file",
-                keys: KeyboardShortcut::new(cmd, Key::O),
-                text_field_takes_it: false,
-            },
-        ),
-        (
-            Command::Save,
-            Shortcut {
-                text: "Save",
-                tooltip: "Save the project to its file",
-                keys: KeyboardShortcut::new(cmd, Key::S),
-                text_field_takes_it: false,
-            },
-        ),
-        (
-            Command::SaveAs,
-            Shortcut {
-                text: "Save as…",
-                tooltip: "Save the project under a new name",
-                keys: KeyboardShortcut::new(cmd_shift, Key::S),
-                text_field_takes_it: false,
-            },
-        ),
-        (
-            Command::Undo,
-            Shortcut {
-                text: "Undo",
-                tooltip: "Undo the last change to the project",
-                keys: KeyboardShortcut::new(cmd, Key::Z),
-                text_field_takes_it: true,
-            },
-        ),
-        (
-            Command::Redo,
-            Shortcut {
-                text: "Redo",
-                tooltip: "Redo the change just undone",
-                keys: KeyboardShortcut::new(cmd_shift, Key::Z),
-                text_field_takes_it: true,
-            },
-        ),
-    ]
-}
-
-/// The shortcut of a command, if it has one.
-pub fn shortcut_of(c: &Command) -> Option<Shortcut> {
-    shortcuts()
-        .into_iter()
-        .find(|(k, _)| k == c)
-        .map(|(_, s)| s)
-}
-
-/// Commands whose shortcuts were pressed this frame. Shortcuts that a text
-/// field would take (undo, redo) are left to the field while one has focus.
-pub fn pressed(ctx: &egui::Context) -> Vec<Command> {
-    let text_focus = ctx.egui_wants_keyboard_input();
-    let mut out = Vec::new();
-    // Longest combinations first, so Ctrl+Shift+S is not read as Ctrl+S.
-    let mut list = shortcuts().to_vec();
-    list.sort_by_key(|(_, s)| std::cmp::Reverse(s.keys.modifiers.shift as u8));
-    for (c, s) in list {
-        if s.text_field_takes_it && text_focus {
-            continue;
-        }
-        if ctx.input_mut(|i| i.consume_shortcut(&s.keys)) {
-            out.push(c);
-        }
-    }
-    out
-}
-
-/// Applies a document-editing command. File and dialog commands are the
-/// app's; they return `Ok(false)` here.
+/// Applies an edit to the document.
 ///
 /// # Errors
-/// A readable reason when the command cannot apply (bad index, duplicate
+/// A readable reason when the edit cannot apply (bad index, duplicate
 /// name): the document is left as it was.
-pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
+pub fn apply_edit(doc: &mut Document, cmd: &Edit) -> Result<(), String> {
     let n_lines = doc.formula().lines.len();
     let check_line = |i: usize| {
         if i < n_lines {
@@ -236,7 +131,7 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
         }
     };
     match cmd {
-        Command::AddLine {
+        Edit::AddLine {
             ingredient,
             amount,
             unit,
@@ -250,22 +145,22 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
                 unit: *unit,
             });
         }
-        Command::RemoveLine(i) => {
+        Edit::RemoveLine(i) => {
             check_line(*i)?;
             doc.formula_mut().lines.remove(*i);
         }
-        Command::MoveLine { from, to } => {
+        Edit::MoveLine { from, to } => {
             check_line(*from)?;
             check_line(*to)?;
             let l = doc.formula_mut().lines.remove(*from);
             doc.formula_mut().lines.insert(*to, l);
         }
-        Command::DuplicateLine(i) => {
+        Edit::DuplicateLine(i) => {
             check_line(*i)?;
             let l = doc.formula().lines[*i].clone();
             doc.formula_mut().lines.insert(*i + 1, l);
         }
-        Command::SetAmount { line, amount, unit } => {
+        Edit::SetAmount { line, amount, unit } => {
             check_line(*line)?;
             if !(amount.is_finite() && *amount >= 0.0) {
                 return Err(format!("{amount} is not an amount ≥ 0"));
@@ -277,47 +172,47 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
             l.amount = *amount;
             l.unit = *unit;
         }
-        Command::ScaleBatch { total_g } => scale_batch(doc, *total_g)?,
-        Command::SetTemperature(k) => {
+        Edit::ScaleBatch { total_g } => scale_batch(doc, *total_g)?,
+        Edit::SetTemperature(k) => {
             let c = k - colligo_core::water::T_ZERO_C;
             within(c, Limits::TEMPERATURE_C, "°C")?;
             doc.project.conditions.temperature_c = c;
         }
-        Command::SetPressure(pa) => {
+        Edit::SetPressure(pa) => {
             let kpa = pa / 1000.0;
             within(kpa, Limits::PRESSURE_KPA, "kPa")?;
             doc.project.conditions.pressure_kpa = kpa;
         }
-        Command::SetStorage(k) => {
+        Edit::SetStorage(k) => {
             let c = k - colligo_core::water::T_ZERO_C;
             within(c, Limits::STORAGE_TEMPERATURE_C, "°C")?;
             doc.project.conditions.storage_temperature_c = c;
         }
-        Command::SetModel(m) => doc.project.model = *m,
-        Command::SetProduct(p) => doc.project.product = *p,
-        Command::SetTemperatureUnit(u) => doc.project.units.temperature = *u,
-        Command::SetPressureUnit(u) => doc.project.units.pressure = *u,
-        Command::SetProjectName(n) => {
+        Edit::SetModel(m) => doc.project.model = *m,
+        Edit::SetProduct(p) => doc.project.product = *p,
+        Edit::SetTemperatureUnit(u) => doc.project.units.temperature = *u,
+        Edit::SetPressureUnit(u) => doc.project.units.pressure = *u,
+        Edit::SetProjectName(n) => {
             if n.trim().is_empty() {
                 return Err("the project needs a name".into());
             }
             doc.project.name = n.clone();
         }
-        Command::SetProjectNotes(n) => doc.project.notes = n.clone(),
-        Command::SelectVariant(i) => {
+        Edit::SetProjectNotes(n) => doc.project.notes = n.clone(),
+        Edit::SelectVariant(i) => {
             if *i >= doc.project.variants.len() {
                 return Err(format!("there is no variant {}", i + 1));
             }
             doc.project.active_variant = *i;
         }
-        Command::NewVariant => {
+        Edit::NewVariant => {
             let name = unique_name(doc, "Variant");
             doc.project
                 .variants
                 .push(Formula::new(&name, vec![Line::grams(WATER_ID, 100.0)]));
             doc.project.active_variant = doc.project.variants.len() - 1;
         }
-        Command::DuplicateVariant(i) => {
+        Edit::DuplicateVariant(i) => {
             let Some(v) = doc.project.variants.get(*i).cloned() else {
                 return Err(format!("there is no variant {}", i + 1));
             };
@@ -325,7 +220,7 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
             doc.project.variants.insert(i + 1, Formula { name, ..v });
             doc.project.active_variant = i + 1;
         }
-        Command::RenameVariant { index, name } => {
+        Edit::RenameVariant { index, name } => {
             let name = name.trim();
             if name.is_empty() {
                 return Err("a variant needs a name".into());
@@ -344,7 +239,7 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
             };
             v.name = name.to_string();
         }
-        Command::DeleteVariant(i) => {
+        Edit::DeleteVariant(i) => {
             if doc.project.variants.len() <= 1 {
                 return Err("a project keeps at least one variant".into());
             }
@@ -358,46 +253,22 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
                     doc.project.active_variant.saturating_sub(1).min(n - 1);
             }
         }
-        Command::SetVariantNotes(n) => doc.formula_mut().notes = n.clone(),
-        Command::PutUserSolute(rec) => {
-            let mut p = doc.project.clone();
-            match p.user_solutes.iter_mut().find(|s| s.id == rec.id) {
-                Some(s) => *s = (**rec).clone(),
-                None => p.user_solutes.push((**rec).clone()),
-            }
-            p.library(doc.base()).map_err(|e| e.to_string())?;
-            doc.project = p;
-            doc.rebuild_library();
-        }
-        Command::PutUserIngredient(rec) => {
-            let mut p = doc.project.clone();
-            match p.user_ingredients.iter_mut().find(|s| s.id == rec.id) {
-                Some(s) => *s = (**rec).clone(),
-                None => p.user_ingredients.push((**rec).clone()),
-            }
-            p.library(doc.base()).map_err(|e| e.to_string())?;
-            doc.project = p;
-            doc.rebuild_library();
-        }
-        Command::ImportUserRecords(ul) => {
-            let mut p = doc.project.clone();
+        Edit::SetVariantNotes(n) => doc.formula_mut().notes = n.clone(),
+        Edit::PutUserSolute(rec) => with_user_records(doc, |p| {
+            put_by_id(&mut p.user_solutes, (**rec).clone(), |s| &s.id);
+        })?,
+        Edit::PutUserIngredient(rec) => with_user_records(doc, |p| {
+            put_by_id(&mut p.user_ingredients, (**rec).clone(), |s| &s.id);
+        })?,
+        Edit::ImportUserRecords(ul) => with_user_records(doc, |p| {
             for rec in &ul.solutes {
-                match p.user_solutes.iter_mut().find(|s| s.id == rec.id) {
-                    Some(s) => *s = rec.clone(),
-                    None => p.user_solutes.push(rec.clone()),
-                }
+                put_by_id(&mut p.user_solutes, rec.clone(), |s| &s.id);
             }
             for rec in &ul.ingredients {
-                match p.user_ingredients.iter_mut().find(|s| s.id == rec.id) {
-                    Some(s) => *s = rec.clone(),
-                    None => p.user_ingredients.push(rec.clone()),
-                }
+                put_by_id(&mut p.user_ingredients, rec.clone(), |s| &s.id);
             }
-            p.library(doc.base()).map_err(|e| e.to_string())?;
-            doc.project = p;
-            doc.rebuild_library();
-        }
-        Command::RemoveUserRecord(id) => {
+        })?,
+        Edit::RemoveUserRecord(id) => {
             let used = doc.project.variants.iter().any(|v| {
                 v.lines.iter().any(|l| {
                     l.ingredient == *id
@@ -415,17 +286,36 @@ pub fn apply_edit(doc: &mut Document, cmd: &Command) -> Result<bool, String> {
                     "`{id}` is used in a formula; remove those lines first"
                 ));
             }
-            let mut p = doc.project.clone();
-            p.user_solutes.retain(|s| s.id != *id);
-            p.user_ingredients.retain(|s| s.id != *id);
-            p.library(doc.base()).map_err(|e| e.to_string())?;
-            doc.project = p;
-            doc.rebuild_library();
+            with_user_records(doc, |p| {
+                p.user_solutes.retain(|s| s.id != *id);
+                p.user_ingredients.retain(|s| s.id != *id);
+            })?;
         }
-        _ => return Ok(false),
     }
     doc.touch();
-    Ok(true)
+    Ok(())
+}
+
+/// Changes the project's user records through `change`, keeping the
+/// document as it was when the result does not make a library.
+fn with_user_records(
+    doc: &mut Document,
+    change: impl FnOnce(&mut colligo_core::Project),
+) -> Result<(), String> {
+    let mut p = doc.project.clone();
+    change(&mut p);
+    p.library(doc.base()).map_err(|e| e.to_string())?;
+    doc.project = p;
+    doc.rebuild_library();
+    Ok(())
+}
+
+/// Replaces the record with `rec`'s id, or adds it.
+fn put_by_id<T>(list: &mut Vec<T>, rec: T, id: impl Fn(&T) -> &String) {
+    match list.iter().position(|r| id(r) == id(&rec)) {
+        Some(i) => list[i] = rec,
+        None => list.push(rec),
+    }
 }
 
 /// `Ok` when `v` lies in the allowed `range`, else the message shown.
@@ -469,19 +359,4 @@ fn scale_batch(doc: &mut Document, total_g: f64) -> Result<(), String> {
         }
     }
     Ok(())
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn shortcuts_do_not_clash() {
-        let list = shortcuts();
-        for (i, (_, a)) in list.iter().enumerate() {
-            for (_, b) in &list[i + 1..] {
-                assert_ne!(a.keys, b.keys, "{} and {} share a shortcut", a.text, b.text);
-            }
-        }
-    }
 }

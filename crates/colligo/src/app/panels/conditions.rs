@@ -8,7 +8,7 @@ use colligo_core::quantity::{
 };
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::Command;
+use crate::app::commands::{Command, Edit};
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::theme;
@@ -89,7 +89,7 @@ impl ConditionsPanel {
                     "e.g. 25 °C, 77 °F, 298 K",
                     |t| {
                         parse_temperature(t)
-                            .map(Command::SetTemperature)
+                            .map(|v| Command::Edit(Edit::SetTemperature(v)))
                             .map_err(|e| e.to_string())
                     },
                     out,
@@ -102,7 +102,7 @@ impl ConditionsPanel {
                     "e.g. 101.325 kPa, 1 atm, 1600 m",
                     |t| {
                         parse_pressure(t)
-                            .map(Command::SetPressure)
+                            .map(|v| Command::Edit(Edit::SetPressure(v)))
                             .map_err(|e| e.to_string())
                     },
                     out,
@@ -115,7 +115,7 @@ impl ConditionsPanel {
                     "for the ice fraction, e.g. -18 °C",
                     |t| {
                         parse_temperature(t)
-                            .map(Command::SetStorage)
+                            .map(|v| Command::Edit(Edit::SetStorage(v)))
                             .map_err(|e| e.to_string())
                     },
                     out,
@@ -134,7 +134,7 @@ impl ConditionsPanel {
                     .response
                     .labelled_by(l.id);
                 if m != doc.project.model {
-                    out.push(Command::SetModel(m));
+                    out.push(Command::Edit(Edit::SetModel(m)));
                 }
                 ui.end_row();
                 ui.label("");
@@ -162,7 +162,7 @@ impl ConditionsPanel {
                 .response
                 .on_hover_text("Temperature unit");
             if tu != units.temperature {
-                out.push(Command::SetTemperatureUnit(tu));
+                out.push(Command::Edit(Edit::SetTemperatureUnit(tu)));
             }
             let mut pu = units.pressure;
             egui::ComboBox::from_id_salt("p-unit")
@@ -176,14 +176,14 @@ impl ConditionsPanel {
                 .response
                 .on_hover_text("Pressure unit");
             if pu != units.pressure {
-                out.push(Command::SetPressureUnit(pu));
+                out.push(Command::Edit(Edit::SetPressureUnit(pu)));
             }
             ui.add_space(10.0);
             let mut p = doc.project.product;
             ui.selectable_value(&mut p, Audience::Food, "Food");
             ui.selectable_value(&mut p, Audience::Cosmetic, "Cosmetic");
             if p != doc.project.product {
-                out.push(Command::SetProduct(p));
+                out.push(Command::Edit(Edit::SetProduct(p)));
             }
         });
     }

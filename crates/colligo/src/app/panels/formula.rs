@@ -5,7 +5,7 @@ use colligo_core::Library;
 use colligo_core::quantity::{AmountUnit, parse_amount, parse_amount_or, trim_float};
 use egui::{Color32, RichText, TextEdit};
 
-use crate::app::commands::Command;
+use crate::app::commands::{Command, Edit};
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::theme;
@@ -239,11 +239,11 @@ impl FormulaPanel {
                 Ok(a) => {
                     e.error = None;
                     e.synced = Some((a.value, a.unit));
-                    out.push(Command::SetAmount {
+                    out.push(Command::Edit(Edit::SetAmount {
                         line: i,
                         amount: a.value,
                         unit: a.unit,
-                    });
+                    }));
                 }
                 Err(err) => e.error = Some(err.to_string()),
             }
@@ -321,9 +321,9 @@ impl FormulaPanel {
                 match parse_amount(&self.scale_text).map(|a| a.kg()) {
                     Ok(Some(kg)) if kg > 0.0 => {
                         self.scale_error = None;
-                        out.push(Command::ScaleBatch {
+                        out.push(Command::Edit(Edit::ScaleBatch {
                             total_g: kg * 1000.0,
-                        });
+                        }));
                     }
                     Ok(_) => self.scale_error = Some("give a mass, e.g. 5 kg".into()),
                     Err(e) => self.scale_error = Some(e.to_string()),
@@ -343,7 +343,7 @@ fn add_line(h: &PickerHit, doc: &Document) -> Command {
     } else {
         unit
     };
-    Command::AddLine {
+    Command::Edit(Edit::AddLine {
         ingredient: h.id.clone(),
         amount: if unit == AmountUnit::Kg || unit == AmountUnit::Lb {
             0.1
@@ -351,7 +351,7 @@ fn add_line(h: &PickerHit, doc: &Document) -> Command {
             10.0
         },
         unit,
-    }
+    })
 }
 
 fn unit_combo(
@@ -385,11 +385,11 @@ fn unit_combo(
         } else {
             amount
         };
-        out.push(Command::SetAmount {
+        out.push(Command::Edit(Edit::SetAmount {
             line: i,
             amount,
             unit: u,
-        });
+        }));
     }
 }
 
@@ -401,20 +401,20 @@ fn line_menu(ui: &mut egui::Ui, i: usize, n: usize, name: &str, out: &mut Vec<Co
             .add_enabled(i > 0, egui::Button::new("Move up"))
             .clicked()
         {
-            out.push(Command::MoveLine { from: i, to: i - 1 });
+            out.push(Command::Edit(Edit::MoveLine { from: i, to: i - 1 }));
         }
         if ui
             .add_enabled(i + 1 < n, egui::Button::new("Move down"))
             .clicked()
         {
-            out.push(Command::MoveLine { from: i, to: i + 1 });
+            out.push(Command::Edit(Edit::MoveLine { from: i, to: i + 1 }));
         }
         if ui.button("Duplicate this line").clicked() {
-            out.push(Command::DuplicateLine(i));
+            out.push(Command::Edit(Edit::DuplicateLine(i)));
         }
         ui.separator();
         if ui.button("Remove this line").clicked() {
-            out.push(Command::RemoveLine(i));
+            out.push(Command::Edit(Edit::RemoveLine(i)));
         }
     });
     let r = r.response.on_hover_text(&what);

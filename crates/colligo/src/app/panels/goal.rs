@@ -8,7 +8,7 @@ use colligo_core::quantity::{AmountUnit, trim_float};
 use colligo_core::water::T_ZERO_C;
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::Command;
+use crate::app::commands::{Command, Edit};
 use crate::app::document::Document;
 use crate::app::theme;
 
@@ -183,17 +183,17 @@ impl GoalDialog {
                     Some(k) => (a.amount_g / 1000.0 / k, unit),
                     None => (a.amount_g, AmountUnit::G),
                 };
-                Command::SetAmount {
+                Command::Edit(Edit::SetAmount {
                     line: i,
                     amount,
                     unit,
-                }
+                })
             }
-            None => Command::AddLine {
+            None => Command::Edit(Edit::AddLine {
                 ingredient: a.ingredient.clone(),
                 amount: a.amount_g,
                 unit: AmountUnit::G,
-            },
+            }),
         }
     }
 

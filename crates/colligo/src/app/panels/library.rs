@@ -8,7 +8,7 @@ use colligo_core::library::{
 use colligo_core::tfun::TempFn;
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::Command;
+use crate::app::commands::{Command, Edit};
 use crate::app::document::Document;
 use crate::app::theme;
 
@@ -303,7 +303,7 @@ impl LibraryWindow {
                             .on_hover_text(format!("Delete {}", s.name))
                             .clicked()
                         {
-                            out.push(Command::RemoveUserRecord(s.id.clone()));
+                            out.push(Command::Edit(Edit::RemoveUserRecord(s.id.clone())));
                         }
                     });
                 }
@@ -318,7 +318,7 @@ impl LibraryWindow {
                             .on_hover_text(format!("Delete {}", i.name))
                             .clicked()
                         {
-                            out.push(Command::RemoveUserRecord(i.id.clone()));
+                            out.push(Command::Edit(Edit::RemoveUserRecord(i.id.clone())));
                         }
                     });
                 }
@@ -385,7 +385,7 @@ impl LibraryWindow {
         {
             match self.solute.record() {
                 Ok(r) => {
-                    out.push(Command::PutUserSolute(Box::new(r)));
+                    out.push(Command::Edit(Edit::PutUserSolute(Box::new(r))));
                     self.error = None;
                     self.solute = SoluteDraft::default();
                 }
@@ -456,7 +456,7 @@ impl LibraryWindow {
             {
                 match self.ingredient.record() {
                     Ok(r) => {
-                        out.push(Command::PutUserIngredient(Box::new(r)));
+                        out.push(Command::Edit(Edit::PutUserIngredient(Box::new(r))));
                         self.error = None;
                         self.ingredient = IngredientDraft::default();
                     }
