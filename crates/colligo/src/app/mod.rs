@@ -28,6 +28,7 @@ use document::Document;
 use files::{PathDialog, PathPurpose, Recovery};
 pub use modals::Modal;
 use panels::charts::ChartsPanel;
+use panels::{Panel, View};
 use panels::conditions::ConditionsPanel;
 use panels::formula::FormulaPanel;
 use panels::goal::GoalDialog;
@@ -215,36 +216,38 @@ impl WorkbenchApp {
 
         egui::Panel::top("menu-bar").show(ui, |ui| self.menu_bar(ui));
         egui::Panel::bottom("status-bar").show(ui, |ui| self.status_bar(ui));
+        // What every panel reads, built from the fields it borrows so the
+        // panels (other fields) can be borrowed mutably beside it.
+        macro_rules! view {
+            () => {
+                View {
+                    doc: &self.doc,
+                    eval: self.eval.as_ref(),
+                    chart: self.charts.current().or(self.charts.last()),
+                    chart_busy: self.charts.busy(),
+                }
+            };
+        }
         let chart_h = self.prefs.chart_height;
         let resp = egui::Panel::bottom("charts")
             .resizable(true)
             .default_size(chart_h)
             .min_size(160.0)
             .show(ui, |ui| {
-                let data = self.charts.current().or(self.charts.last());
-                let out = self.charts_panel.ui(
-                    ui,
-                    &self.doc,
-                    self.eval.as_ref(),
-                    data,
-                    self.charts.busy(),
-                );
-                if let Some(job) = out.job {
-                    let cond = self.doc.project.conditions.to_conditions();
-                    self.charts.request(
-                        &ctx,
-                        &self.doc.lib,
-                        self.doc.formula(),
-                        &cond,
-                        self.doc.project.model,
-                        job,
-                    );
-                }
-                if out.export {
-                    self.pending.push(Action::ExportChart.into());
-                }
+                self.charts_panel.ui(ui, &view!(), &mut self.pending);
             });
         self.prefs.chart_height = resp.response.rect.height();
+        if let Some(job) = self.charts_panel.request.take() {
+            let cond = self.doc.project.conditions.to_conditions();
+            self.charts.request(
+                &ctx,
+                &self.doc.lib,
+                self.doc.formula(),
+                &cond,
+                self.doc.project.model,
+                job,
+            );
+        }
         let resp = egui::Panel::right("results")
             .resizable(true)
             .default_size(self.prefs.results_width)
@@ -253,33 +256,23 @@ impl WorkbenchApp {
                 egui::ScrollArea::vertical()
                     .id_salt("results-scroll")
                     .show(ui, |ui| {
-                        self.conditions_panel.ui(
-                            ui,
-                            &self.doc,
-                            self.eval.as_ref(),
-                            &mut self.pending,
-                        );
+                        let view = view!();
+                        self.conditions_panel.ui(ui, &view, &mut self.pending);
                         ui.separator();
-                        self.results_panel.ui(ui, &self.doc, self.eval.as_ref());
+                        self.results_panel.ui(ui, &view, &mut self.pending);
                         ui.separator();
-                        self.stability_panel.ui(ui, &self.doc, self.eval.as_ref());
+                        self.stability_panel.ui(ui, &view, &mut self.pending);
                     });
             });
         self.prefs.results_width = resp.response.rect.width();
         self.prefs.chart_tab = self.charts_panel.tab;
         egui::CentralPanel::default().show(ui, |ui| {
             self.variant_strip(ui);
-            self.formula_panel
-                .ui(ui, &self.doc, self.eval.as_ref(), &mut self.pending);
+            self.formula_panel.ui(ui, &view!(), &mut self.pending);
         });
-        self.goal.ui(&ctx, &self.doc, &mut self.pending);
-        let lib_out = self.library_window.ui(&ctx, &self.doc, &mut self.pending);
-        if lib_out.export {
-            self.pending.push(Action::ExportUserLibrary.into());
-        }
-        if lib_out.import {
-            self.pending.push(Action::ImportUserLibrary.into());
-        }
+        let view = view!();
+        self.goal.ui(ui, &view, &mut self.pending);
+        self.library_window.ui(ui, &view, &mut self.pending);
         self.modal_ui(&ctx);
 
         let time = ctx.input(|i| i.time);

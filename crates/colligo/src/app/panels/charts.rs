@@ -42,6 +42,8 @@ fn hover(h: &HoverPosition<'_>, fmt: impl Fn(&PlotPoint) -> String) -> Option<St
 use crate::app::compute::{ChartData, ChartJob, Evaluation, SweepProperty};
 use crate::app::document::Document;
 use crate::app::prefs::ChartTab;
+use crate::app::commands::{Action, Command};
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
 /// The chart panel's own settings (not part of the document).
@@ -61,6 +63,9 @@ pub struct ChartsPanel {
     pub freeze_to_c: f64,
     /// Vapour-pressure chart range, °C.
     pub vp_range_c: (f64, f64),
+    /// The chart the panel asked for in its last frame (None on the
+    /// comparison and ranking tabs, which compute their own).
+    pub request: Option<ChartJob>,
 }
 
 impl Default for ChartsPanel {
@@ -72,18 +77,16 @@ impl Default for ChartsPanel {
             sweep_ingredient: None,
             sweep_property: SweepProperty::WaterActivity,
             freeze_to_c: -30.0,
+            request: None,
             vp_range_c: (0.0, 100.0),
         }
     }
 }
 
-/// What the panel asks of the app this frame.
-#[derive(Debug, Default)]
-pub struct ChartsOutput {
-    /// The chart to compute.
-    pub job: Option<ChartJob>,
-    /// The user asked to export the data shown.
-    pub export: bool,
+impl Panel for ChartsPanel {
+    fn ui(&mut self, ui: &mut egui::Ui, view: &View<'_>, out: &mut Vec<Command>) {
+        self.show(ui, view.doc, view.eval, view.chart, view.chart_busy, out);
+    }
 }
 
 impl ChartsPanel {
@@ -134,16 +137,16 @@ impl ChartsPanel {
         }
     }
 
-    /// Shows the panel with the data available.
-    pub fn ui(
+    fn show(
         &mut self,
         ui: &mut egui::Ui,
         doc: &Document,
         eval: Option<&Evaluation>,
         data: Option<&ChartData>,
         busy: bool,
-    ) -> ChartsOutput {
-        let mut out = ChartsOutput::default();
+        out: &mut Vec<Command>,
+    ) {
+        self.request = None;
         ui.horizontal(|ui| {
             ui.heading("Charts");
             for (tab, name) in [
@@ -157,12 +160,13 @@ impl ChartsPanel {
                 ui.selectable_value(&mut self.tab, tab, name);
             }
             ui.with_layout(egui::Layout::right_to_left(egui::Align::Center), |ui| {
+                let export = Action::ExportChart;
                 if ui
-                    .button("Export CSV…")
-                    .on_hover_text("Save the data of this chart as CSV")
+                    .button(export.label())
+                    .on_hover_text(export.tooltip())
                     .clicked()
                 {
-                    out.export = true;
+                    out.push(export.into());
                 }
                 // A still label rather than a spinner: the worker repaints
                 // when it is done, so nothing animates while waiting.
@@ -174,16 +178,16 @@ impl ChartsPanel {
         match self.tab {
             ChartTab::Variants => {
                 self.comparison.ui(ui, doc);
-                return out;
+                return;
             }
             ChartTab::Ranking => {
                 self.ranking.ui(ui, doc);
-                return out;
+                return;
             }
             _ => {}
         }
         self.controls(ui, doc);
-        out.job = self.job(doc, eval);
+        self.request = self.job(doc, eval);
         match data {
             None => {
                 ui.label(RichText::new("computing…").color(theme::MUTED));
@@ -193,7 +197,6 @@ impl ChartsPanel {
             }
             Some(d) => self.plot(ui, doc, eval, d),
         }
-        out
     }
 
     fn controls(&mut self, ui: &mut egui::Ui, doc: &Document) {

@@ -11,6 +11,7 @@ use egui::{RichText, TextEdit};
 use crate::app::commands::{Command, Edit};
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
 /// One typed quantity field.
@@ -61,9 +62,14 @@ fn show_pressure(pa: f64, u: PressureUnit) -> String {
     )
 }
 
+impl Panel for ConditionsPanel {
+    fn ui(&mut self, ui: &mut egui::Ui, view: &View<'_>, out: &mut Vec<Command>) {
+        self.show(ui, view.doc, view.eval, out);
+    }
+}
+
 impl ConditionsPanel {
-    /// Shows the panel.
-    pub fn ui(
+    fn show(
         &mut self,
         ui: &mut egui::Ui,
         doc: &Document,

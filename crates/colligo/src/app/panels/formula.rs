@@ -8,6 +8,7 @@ use egui::{Color32, RichText, TextEdit};
 use crate::app::commands::{Command, Edit};
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
 /// The text being typed into one amount field.
@@ -93,9 +94,14 @@ pub fn search(lib: &Library, query: &str, limit: usize) -> Vec<PickerHit> {
     hits.into_iter().take(limit).map(|(_, h)| h).collect()
 }
 
+impl Panel for FormulaPanel {
+    fn ui(&mut self, ui: &mut egui::Ui, view: &View<'_>, out: &mut Vec<Command>) {
+        self.show(ui, view.doc, view.eval, out);
+    }
+}
+
 impl FormulaPanel {
-    /// Shows the panel; edits go to `out`.
-    pub fn ui(
+    fn show(
         &mut self,
         ui: &mut egui::Ui,
         doc: &Document,

@@ -10,6 +10,7 @@ use egui::{RichText, TextEdit};
 
 use crate::app::commands::{Command, Edit};
 use crate::app::document::Document;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
 /// The property a goal aims at.
@@ -78,6 +79,12 @@ pub struct GoalDialog {
     pub value: String,
     /// The last answer or why there is none.
     pub result: Option<Result<Answer, String>>,
+}
+
+impl Panel for GoalDialog {
+    fn ui(&mut self, ui: &mut egui::Ui, view: &View<'_>, out: &mut Vec<Command>) {
+        self.show(&ui.ctx().clone(), view.doc, out);
+    }
 }
 
 impl GoalDialog {
@@ -197,8 +204,7 @@ impl GoalDialog {
         }
     }
 
-    /// Shows the dialog window.
-    pub fn ui(&mut self, ctx: &egui::Context, doc: &Document, out: &mut Vec<Command>) {
+    fn show(&mut self, ctx: &egui::Context, doc: &Document, out: &mut Vec<Command>) {
         if !self.open {
             return;
         }

@@ -8,18 +8,10 @@ use colligo_core::library::{
 use colligo_core::tfun::TempFn;
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::{Command, Edit};
+use crate::app::commands::{Action, Command, Edit};
 use crate::app::document::Document;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
-
-/// What the library window asks of the app.
-#[derive(Debug, Default, PartialEq, Eq)]
-pub struct LibraryOutput {
-    /// Export the user records to a file.
-    pub export: bool,
-    /// Import user records from a file.
-    pub import: bool,
-}
 
 /// A draft solute.
 #[derive(Debug, Clone)]
@@ -252,17 +244,16 @@ impl IngredientDraft {
     }
 }
 
+impl Panel for LibraryWindow {
+    fn ui(&mut self, ui: &mut egui::Ui, view: &View<'_>, out: &mut Vec<Command>) {
+        self.show(&ui.ctx().clone(), view.doc, out);
+    }
+}
+
 impl LibraryWindow {
-    /// Shows the window.
-    pub fn ui(
-        &mut self,
-        ctx: &egui::Context,
-        doc: &Document,
-        out: &mut Vec<Command>,
-    ) -> LibraryOutput {
-        let mut res = LibraryOutput::default();
+    fn show(&mut self, ctx: &egui::Context, doc: &Document, out: &mut Vec<Command>) {
         if !self.open {
-            return res;
+            return;
         }
         let mut open = true;
         egui::Window::new("My ingredients and solutes")
@@ -275,14 +266,14 @@ impl LibraryWindow {
                         .on_hover_text("Save these records to a library file")
                         .clicked()
                     {
-                        res.export = true;
+                        out.push(Action::ExportUserLibrary.into());
                     }
                     if ui
                         .button("Import…")
                         .on_hover_text("Add records from a library file")
                         .clicked()
                     {
-                        res.import = true;
+                        out.push(Action::ImportUserLibrary.into());
                     }
                 });
                 let p = &doc.project;
@@ -333,7 +324,6 @@ impl LibraryWindow {
         if !open {
             self.open = false;
         }
-        res
     }
 
     fn solute_form(&mut self, ui: &mut egui::Ui, doc: &Document, out: &mut Vec<Command>) {

@@ -7,6 +7,8 @@ use egui::{RichText, Ui};
 
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
+use crate::app::commands::Command;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 use crate::report::CAUTIONS;
 
@@ -32,9 +34,14 @@ fn p_text(pa: f64, u: PressureUnit) -> String {
     format!("{v:.d$} {}", u.symbol())
 }
 
+impl Panel for ResultsPanel {
+    fn ui(&mut self, ui: &mut Ui, view: &View<'_>, _out: &mut Vec<Command>) {
+        self.show(ui, view.doc, view.eval);
+    }
+}
+
 impl ResultsPanel {
-    /// Shows the panel.
-    pub fn ui(&mut self, ui: &mut Ui, doc: &Document, eval: Option<&Evaluation>) {
+    fn show(&mut self, ui: &mut Ui, doc: &Document, eval: Option<&Evaluation>) {
         ui.heading("Water profile");
         let Some(eval) = eval else {
             ui.label("computing…");

@@ -8,6 +8,8 @@ use egui::{Color32, FontId, Pos2, Rect, RichText, Sense, Stroke, Ui, vec2};
 
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
+use crate::app::commands::Command;
+use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
 /// The stability panel.
@@ -17,9 +19,14 @@ pub struct StabilityPanel {
     pub show_list: bool,
 }
 
+impl Panel for StabilityPanel {
+    fn ui(&mut self, ui: &mut Ui, view: &View<'_>, _out: &mut Vec<Command>) {
+        self.show(ui, view.doc, view.eval);
+    }
+}
+
 impl StabilityPanel {
-    /// Shows the scale and the list.
-    pub fn ui(&mut self, ui: &mut Ui, doc: &Document, eval: Option<&Evaluation>) {
+    fn show(&mut self, ui: &mut Ui, doc: &Document, eval: Option<&Evaluation>) {
         let kind = doc.project.product;
         ui.horizontal(|ui| {
             ui.heading("Stability guidance");
