@@ -117,6 +117,45 @@ pub fn trim_float(v: f64) -> String {
 
 /// Splits `text` into a leading number (sign, digits, one `.` or `,`
 /// decimal mark, optional exponent) and the rest.
+/// Reads a plain number as users type it: surrounding space ignored, a
+/// decimal comma accepted (`12,5`). `None` when it is not a number.
+pub fn parse_number(text: &str) -> Option<f64> {
+    text.trim().replace(',', ".").parse().ok()
+}
+
+/// A snake_case id from a display name: ASCII letters and digits kept
+/// (lower-cased), runs of anything else become one `_`, none at the ends.
+/// Empty when nothing is left.
+pub fn slug(name: &str) -> String {
+    let mut out = String::with_capacity(name.len());
+    for c in name.chars() {
+        if c.is_ascii_alphanumeric() {
+            out.push(c.to_ascii_lowercase());
+        } else if !out.is_empty() && !out.ends_with('_') {
+            out.push('_');
+        }
+    }
+    while out.ends_with('_') {
+        out.pop();
+    }
+    out
+}
+
+/// A value with `decimals` decimals and the unit symbol, e.g. `25.00 °C`;
+/// with `trim`, trailing zeros go (`25 °C`), as in fields a user edits.
+/// Never a negative zero.
+pub fn show_value(v: f64, decimals: usize, trim: bool, symbol: &str) -> String {
+    let scale = 10f64.powi(decimals as i32);
+    let r = (v * scale).round() / scale;
+    let r = if r == 0.0 { 0.0 } else { r };
+    let text = if trim {
+        trim_float(r)
+    } else {
+        format!("{r:.decimals$}")
+    };
+    format!("{text} {symbol}")
+}
+
 fn split_number(text: &str) -> Option<(f64, &str)> {
     let t = text.trim();
     let b = t.as_bytes();
@@ -150,7 +189,7 @@ fn split_number(text: &str) -> Option<(f64, &str)> {
             i = j;
         }
     }
-    let v: f64 = t[..i].replace(',', ".").parse().ok()?;
+    let v = parse_number(&t[..i])?;
     Some((v, t[i..].trim()))
 }
 
@@ -388,6 +427,17 @@ fn altitude(h: f64) -> Result<f64, String> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn numbers_slugs_and_display() {
+        assert_eq!(parse_number(" 12,5 "), Some(12.5));
+        assert_eq!(parse_number("abc"), None);
+        assert_eq!(slug("Mon sirop — 42 DE!"), "mon_sirop_42_de");
+        assert_eq!(slug("***"), "");
+        assert_eq!(show_value(-0.0001, 2, false, "°C"), "0.00 °C");
+        assert_eq!(show_value(25.0, 2, true, "°C"), "25 °C");
+        assert_eq!(show_value(101.325, 1, false, "kPa"), "101.3 kPa");
+    }
 
     #[test]
     fn amounts() {

@@ -38,8 +38,14 @@ pub struct Evaluation {
     pub elapsed: Duration,
 }
 
-/// Hash of everything an evaluation depends on.
-pub fn key_of(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelChoice) -> u64 {
+/// Hash of everything an evaluation depends on: the formula's lines, the
+/// conditions, the model and the revision of the library.
+pub fn key_of(
+    library_revision: u64,
+    formula: &Formula,
+    cond: &Conditions,
+    model: ModelChoice,
+) -> u64 {
     let mut h = DefaultHasher::new();
     for l in &formula.lines {
         l.ingredient.hash(&mut h);
@@ -50,22 +56,20 @@ pub fn key_of(lib: &Library, formula: &Formula, cond: &Conditions, model: ModelC
     cond.pressure_pa.to_bits().hash(&mut h);
     cond.storage_temperature_k.to_bits().hash(&mut h);
     model.hash(&mut h);
-    lib.solutes.len().hash(&mut h);
-    lib.ingredients.len().hash(&mut h);
-    (lib as *const Library as usize).hash(&mut h);
+    library_revision.hash(&mut h);
     h.finish()
 }
 
 /// Evaluates the formula under the chosen model and under every model for
-/// the comparison.
+/// the comparison; `key` is [`key_of`] its inputs.
 pub fn evaluate(
+    key: u64,
     lib: &Library,
     formula: &Formula,
     cond: &Conditions,
     model: ModelChoice,
 ) -> Evaluation {
     let start = Instant::now();
-    let key = key_of(lib, formula, cond, model);
     let resolved = formula.resolve(lib).map_err(|e| e.to_string());
     let (props, lines, spread) = match &resolved {
         Err(e) => (
@@ -157,6 +161,29 @@ pub enum ChartJob {
     },
 }
 
+impl Hash for ChartJob {
+    fn hash<H: Hasher>(&self, h: &mut H) {
+        std::mem::discriminant(self).hash(h);
+        match self {
+            ChartJob::Sweep {
+                ingredient,
+                from_g,
+                to_g,
+            } => {
+                ingredient.hash(h);
+                from_g.to_bits().hash(h);
+                to_g.to_bits().hash(h);
+            }
+            ChartJob::PerGram { up_to_g } => up_to_g.to_bits().hash(h),
+            ChartJob::Freezing { to_c } => to_c.to_bits().hash(h),
+            ChartJob::VaporPressure { from_c, to_c } => {
+                from_c.to_bits().hash(h);
+                to_c.to_bits().hash(h);
+            }
+        }
+    }
+}
+
 /// Computed chart data.
 #[derive(Debug, Clone)]
 pub enum ChartData {
@@ -245,14 +272,15 @@ impl ChartWorker {
         &mut self,
         ctx: &egui::Context,
         lib: &Arc<Library>,
+        library_revision: u64,
         formula: &Formula,
         cond: &Conditions,
         model: ModelChoice,
         job: ChartJob,
     ) {
         let mut h = DefaultHasher::new();
-        key_of(lib, formula, cond, model).hash(&mut h);
-        format!("{job:?}").hash(&mut h);
+        key_of(library_revision, formula, cond, model).hash(&mut h);
+        job.hash(&mut h);
         let key = h.finish();
         if self.requested == Some(key) {
             return;

@@ -3,10 +3,19 @@
 
 use std::path::PathBuf;
 use std::sync::Arc;
+use std::sync::atomic::{AtomicU64, Ordering};
 
 use colligo_core::project::Project;
 use colligo_core::{Formula, Library};
 use egui::util::undoer::{Settings, Undoer};
+
+/// A revision number never handed out before in this process: a new, opened
+/// or recovered document never reuses one, so nothing cached for an earlier
+/// document (a variant comparison, a ranking) is taken for it.
+fn next_revision() -> u64 {
+    static NEXT: AtomicU64 = AtomicU64::new(1);
+    NEXT.fetch_add(1, Ordering::Relaxed)
+}
 
 /// The open project and everything derived from it that must stay in step.
 pub struct Document {
@@ -21,8 +30,12 @@ pub struct Document {
     base: Arc<Library>,
     saved: Project,
     undoer: Undoer<Project>,
-    /// Bumped on every change (autosave and the variant comparison key on it).
+    /// Changes with every change of the project, unique across documents
+    /// (autosave and the variant comparison key on it).
     pub revision: u64,
+    /// Changes whenever the library is rebuilt (evaluation and chart
+    /// caches key on it).
+    pub library_revision: u64,
 }
 
 impl Document {
@@ -40,7 +53,8 @@ impl Document {
                 stable_time: 0.6,
                 auto_save_interval: 10.0,
             }),
-            revision: 0,
+            revision: next_revision(),
+            library_revision: 0,
         };
         d.rebuild_library();
         d
@@ -68,6 +82,7 @@ impl Document {
                 self.library_error = Some(e.to_string());
             }
         }
+        self.library_revision = next_revision();
     }
 
     /// The built-in library.
@@ -144,12 +159,12 @@ impl Document {
         if user_changed {
             self.rebuild_library();
         }
-        self.revision += 1;
+        self.revision = next_revision();
     }
 
     /// Marks a change made through a command.
     pub fn touch(&mut self) {
-        self.revision += 1;
+        self.revision = next_revision();
     }
 
     /// Display name for the window title: project name, file, unsaved mark.

@@ -243,16 +243,6 @@ fn shellexpand_home(t: &str) -> String {
 
 /// A file name from a project name.
 pub fn file_name_for(name: &str) -> String {
-    let s: String = name
-        .chars()
-        .map(|c| {
-            if c.is_alphanumeric() {
-                c.to_ascii_lowercase()
-            } else {
-                '_'
-            }
-        })
-        .collect();
-    let s = s.trim_matches('_').to_string();
+    let s = colligo_core::quantity::slug(name);
     format!("{}.ron", if s.is_empty() { "project" } else { &s })
 }

@@ -28,13 +28,13 @@ use document::Document;
 use files::{PathDialog, PathPurpose, Recovery};
 pub use modals::Modal;
 use panels::charts::ChartsPanel;
-use panels::{Panel, View};
 use panels::conditions::ConditionsPanel;
 use panels::formula::FormulaPanel;
 use panels::goal::GoalDialog;
 use panels::library::LibraryWindow;
 use panels::results::ResultsPanel;
 use panels::stability::StabilityPanel;
+use panels::{Panel, View};
 use prefs::Prefs;
 pub use status::{FrameStats, STARTUP_FRAMES, Status};
 
@@ -185,13 +185,14 @@ impl WorkbenchApp {
     pub fn refresh(&mut self) {
         let cond = self.doc.project.conditions.to_conditions();
         let key = compute::key_of(
-            &self.doc.lib,
+            self.doc.library_revision,
             self.doc.formula(),
             &cond,
             self.doc.project.model,
         );
         if self.eval.as_ref().map(|e| e.key) != Some(key) {
             self.eval = Some(compute::evaluate(
+                key,
                 &self.doc.lib,
                 self.doc.formula(),
                 &cond,
@@ -242,6 +243,7 @@ impl WorkbenchApp {
             self.charts.request(
                 &ctx,
                 &self.doc.lib,
+                self.doc.library_revision,
                 self.doc.formula(),
                 &cond,
                 self.doc.project.model,

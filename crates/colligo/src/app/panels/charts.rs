@@ -39,11 +39,11 @@ fn hover(h: &HoverPosition<'_>, fmt: impl Fn(&PlotPoint) -> String) -> Option<St
     }
 }
 
+use crate::app::commands::{Action, Command};
 use crate::app::compute::{ChartData, ChartJob, Evaluation, SweepProperty};
 use crate::app::document::Document;
-use crate::app::prefs::ChartTab;
-use crate::app::commands::{Action, Command};
 use crate::app::panels::{Panel, View};
+use crate::app::prefs::ChartTab;
 use crate::app::theme;
 
 /// The chart panel's own settings (not part of the document).

@@ -4,7 +4,7 @@
 use colligo_core::library::Audience;
 use colligo_core::models::ModelChoice;
 use colligo_core::quantity::{
-    PressureUnit, TemperatureUnit, parse_pressure, parse_temperature, trim_float,
+    PressureUnit, TemperatureUnit, parse_pressure, parse_temperature, show_value,
 };
 use egui::{RichText, TextEdit};
 
@@ -47,19 +47,11 @@ pub struct ConditionsPanel {
 }
 
 fn show_temperature(k: f64, u: TemperatureUnit) -> String {
-    format!(
-        "{} {}",
-        trim_float((u.from_kelvin(k) * 100.0).round() / 100.0),
-        u.symbol()
-    )
+    show_value(u.from_kelvin(k), 2, true, u.symbol())
 }
 
 fn show_pressure(pa: f64, u: PressureUnit) -> String {
-    format!(
-        "{} {}",
-        trim_float((pa / u.pa_per_unit() * 1000.0).round() / 1000.0),
-        u.symbol()
-    )
+    show_value(pa / u.pa_per_unit(), 3, true, u.symbol())
 }
 
 impl Panel for ConditionsPanel {

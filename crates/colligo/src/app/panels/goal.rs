@@ -4,7 +4,7 @@
 
 use colligo_core::goal::{GoalError, Target, goal_seek};
 use colligo_core::library::WATER_ID;
-use colligo_core::quantity::{AmountUnit, trim_float};
+use colligo_core::quantity::{AmountUnit, parse_number, trim_float};
 use colligo_core::water::T_ZERO_C;
 use egui::{RichText, TextEdit};
 
@@ -117,12 +117,8 @@ impl GoalDialog {
     }
 
     fn target(&self, doc: &Document) -> Result<Target, String> {
-        let v: f64 = self
-            .value
-            .trim()
-            .replace(',', ".")
-            .parse()
-            .map_err(|_| format!("`{}` is not a number", self.value.trim()))?;
+        let v = parse_number(&self.value)
+            .ok_or_else(|| format!("`{}` is not a number", self.value.trim()))?;
         let t = match self.kind {
             TargetKind::WaterActivity => Target::WaterActivity(v),
             TargetKind::Erh => Target::ErhPercent(v),

@@ -5,6 +5,7 @@ use colligo_core::library::{
     Cite, Confidence, IngredientCategory, IngredientRecord, IngredientSolute, InsolubleRecord,
     IonCount, NorrishRecord, SoluteCategory, SoluteKind, SoluteRecord,
 };
+use colligo_core::quantity::{parse_number, slug};
 use colligo_core::tfun::TempFn;
 use egui::{RichText, TextEdit};
 
@@ -74,22 +75,9 @@ pub struct LibraryWindow {
     pub error: Option<String>,
 }
 
-/// A snake_case id from a display name.
+/// A snake_case id from a display name, usable as a library id.
 pub fn id_from_name(name: &str) -> String {
-    let mut s: String = name
-        .chars()
-        .map(|c| {
-            if c.is_ascii_alphanumeric() {
-                c.to_ascii_lowercase()
-            } else {
-                '_'
-            }
-        })
-        .collect();
-    while s.contains("__") {
-        s = s.replace("__", "_");
-    }
-    let s = s.trim_matches('_').to_string();
+    let s = slug(name);
     if s.is_empty() {
         "my_item".into()
     } else if s.starts_with(|c: char| c.is_ascii_digit()) {
@@ -109,13 +97,11 @@ fn user_cite(text: &str) -> Cite {
 }
 
 fn num(text: &str, what: &str) -> Result<f64, String> {
-    let t = text.trim().replace(',', ".");
-    if t.is_empty() {
+    if text.trim().is_empty() {
         return Ok(0.0);
     }
-    let v: f64 = t
-        .parse()
-        .map_err(|_| format!("{what}: `{}` is not a number", text.trim()))?;
+    let v =
+        parse_number(text).ok_or_else(|| format!("{what}: `{}` is not a number", text.trim()))?;
     if !v.is_finite() || v < 0.0 {
         return Err(format!("{what} must be a number ≥ 0"));
     }
@@ -154,10 +140,8 @@ impl SoluteDraft {
         let norrish = if self.norrish_k.trim().is_empty() || self.electrolyte {
             None
         } else {
-            let t = self.norrish_k.trim().replace(',', ".");
-            let k: f64 = t
-                .parse()
-                .map_err(|_| format!("Norrish K: `{}` is not a number", self.norrish_k.trim()))?;
+            let k = parse_number(&self.norrish_k)
+                .ok_or_else(|| format!("Norrish K: `{}` is not a number", self.norrish_k.trim()))?;
             if !k.is_finite() {
                 return Err("Norrish K must be finite".into());
             }

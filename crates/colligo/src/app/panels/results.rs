@@ -2,12 +2,12 @@
 //! between applicable models, the warnings with their reasons, and the
 //! cautions.
 
-use colligo_core::quantity::{PressureUnit, TemperatureUnit};
+use colligo_core::quantity::{PressureUnit, TemperatureUnit, show_value};
 use egui::{RichText, Ui};
 
+use crate::app::commands::Command;
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
-use crate::app::commands::Command;
 use crate::app::panels::{Panel, View};
 use crate::app::theme;
 use crate::report::CAUTIONS;
@@ -19,7 +19,7 @@ pub struct ResultsPanel {}
 
 fn t_text(c: f64, u: TemperatureUnit) -> String {
     let k = c + colligo_core::water::T_ZERO_C;
-    format!("{:.2} {}", u.from_kelvin(k), u.symbol())
+    show_value(u.from_kelvin(k), 2, false, u.symbol())
 }
 
 fn p_text(pa: f64, u: PressureUnit) -> String {
@@ -31,7 +31,7 @@ fn p_text(pa: f64, u: PressureUnit) -> String {
     } else {
         4
     };
-    format!("{v:.d$} {}", u.symbol())
+    show_value(v, d, false, u.symbol())
 }
 
 impl Panel for ResultsPanel {

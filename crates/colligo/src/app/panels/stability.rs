@@ -6,9 +6,9 @@ use colligo_core::guidance::{Nearest, lines_for, nearest};
 use colligo_core::library::{Audience, ThresholdKind, ThresholdRecord};
 use egui::{Color32, FontId, Pos2, Rect, RichText, Sense, Stroke, Ui, vec2};
 
+use crate::app::commands::Command;
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
-use crate::app::commands::Command;
 use crate::app::panels::{Panel, View};
 use crate::app::theme;
 
