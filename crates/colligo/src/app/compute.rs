@@ -19,6 +19,8 @@ use colligo_core::sweep::{self, QuickSweep};
 use colligo_core::water::T_ZERO_C;
 use colligo_core::{Formula, Library};
 
+use super::document::Document;
+
 /// One evaluation of the active variant.
 #[derive(Debug, Clone)]
 pub struct Evaluation {
@@ -267,19 +269,14 @@ impl ChartWorker {
         }
     }
 
-    /// Asks for a chart unless the same one is already asked for.
-    pub fn request(
-        &mut self,
-        ctx: &egui::Context,
-        lib: &Arc<Library>,
-        library_revision: u64,
-        formula: &Formula,
-        cond: &Conditions,
-        model: ModelChoice,
-        job: ChartJob,
-    ) {
+    /// Asks for a chart of the document's active variant unless the same
+    /// one is already asked for.
+    pub fn request(&mut self, ctx: &egui::Context, doc: &Document, job: ChartJob) {
+        let formula = doc.formula();
+        let cond = doc.project.conditions.to_conditions();
+        let model = doc.project.model;
         let mut h = DefaultHasher::new();
-        key_of(library_revision, formula, cond, model).hash(&mut h);
+        key_of(doc.library_revision, formula, &cond, model).hash(&mut h);
         job.hash(&mut h);
         let key = h.finish();
         if self.requested == Some(key) {
@@ -289,9 +286,9 @@ impl ChartWorker {
         let _ = self.tx.send(Request {
             key,
             ctx: Some(ctx.clone()),
-            lib: lib.clone(),
+            lib: doc.lib.clone(),
             formula: formula.clone(),
-            cond: *cond,
+            cond,
             model,
             job,
         });

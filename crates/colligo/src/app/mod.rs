@@ -239,16 +239,7 @@ impl WorkbenchApp {
             });
         self.prefs.chart_height = resp.response.rect.height();
         if let Some(job) = self.charts_panel.request.take() {
-            let cond = self.doc.project.conditions.to_conditions();
-            self.charts.request(
-                &ctx,
-                &self.doc.lib,
-                self.doc.library_revision,
-                self.doc.formula(),
-                &cond,
-                self.doc.project.model,
-                job,
-            );
+            self.charts.request(&ctx, &self.doc, job);
         }
         let resp = egui::Panel::right("results")
             .resizable(true)
