@@ -30,6 +30,16 @@ pub enum LibraryError {
         /// What is wrong.
         message: String,
     },
+    /// A correlation or table of an entry has bad coefficients.
+    #[error("`{id}`: {field}: {source}")]
+    Correlation {
+        /// The entry.
+        id: String,
+        /// Which of its fields.
+        field: &'static str,
+        /// What is wrong.
+        source: crate::correlations::CorrelationError,
+    },
     /// A citation names a key missing from the bibliography.
     #[error("`{owner}` cites unknown source `{key}`")]
     UnknownSource {

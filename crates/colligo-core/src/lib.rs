@@ -6,6 +6,7 @@
 //! line are thin layers over this crate.
 
 pub mod composition;
+pub mod correlations;
 pub mod csv;
 pub mod error;
 pub mod formula;
@@ -18,7 +19,6 @@ pub mod properties;
 pub mod quantity;
 pub mod solver;
 pub mod sweep;
-pub mod tfun;
 pub mod userlib;
 pub mod warnings;
 pub mod water;

@@ -8,8 +8,8 @@ use std::collections::HashMap;
 
 pub use records::*;
 
+use crate::correlations::TempFn;
 use crate::error::LibraryError;
-use crate::tfun::TempFn;
 
 /// Index of a solute in [`Library::solutes`].
 pub type SoluteIdx = usize;
@@ -323,9 +323,10 @@ impl Library {
                 ThirdVirial::C0C1 { c0, c1, .. } => vec![c0, c1],
             };
             for f in [&p.beta0, &p.beta1, &p.beta2].into_iter().chain(third) {
-                f.check().map_err(|message| LibraryError::Invalid {
+                f.check().map_err(|source| LibraryError::Correlation {
                     id: owner.clone(),
-                    message,
+                    field: "Pitzer parameters",
+                    source,
                 })?;
             }
             let c = self.ion_idx(&p.cation, &owner)?;
@@ -356,10 +357,13 @@ impl Library {
                     message: "θ needs two different ions of like sign".into(),
                 });
             }
-            t.theta.check().map_err(|message| LibraryError::Invalid {
-                id: owner.clone(),
-                message,
-            })?;
+            t.theta
+                .check()
+                .map_err(|source| LibraryError::Correlation {
+                    id: owner.clone(),
+                    field: "theta",
+                    source,
+                })?;
             let key = (i.min(j), i.max(j));
             if self
                 .pitzer
@@ -388,9 +392,10 @@ impl Library {
                     message: "ψ needs two like-sign ions, then one of opposite sign".into(),
                 });
             }
-            p.psi.check().map_err(|message| LibraryError::Invalid {
+            p.psi.check().map_err(|source| LibraryError::Correlation {
                 id: owner.clone(),
-                message,
+                field: "psi",
+                source,
             })?;
             let key = (i.min(j), i.max(j), k);
             if self
@@ -462,9 +467,10 @@ impl Library {
             if !user {
                 self.check_cite(&n.source, &rec.id)?;
             }
-            n.k.check().map_err(|message| LibraryError::Invalid {
+            n.k.check().map_err(|source| LibraryError::Correlation {
                 id: rec.id.clone(),
-                message,
+                field: "norrish.k",
+                source,
             })?;
         }
         if let Some(s) = &rec.solubility {
@@ -473,16 +479,18 @@ impl Library {
             }
             s.g_per_100g_water
                 .check()
-                .map_err(|message| LibraryError::Invalid {
+                .map_err(|source| LibraryError::Correlation {
                     id: rec.id.clone(),
-                    message: format!("solubility: {message}"),
+                    field: "solubility.g_per_100g_water",
+                    source,
                 })?;
         }
         if let SoluteKind::Volatile(v) = &rec.kind {
             for f in [&v.wilson.a12_j_per_mol, &v.wilson.a21_j_per_mol] {
-                f.check().map_err(|message| LibraryError::Invalid {
+                f.check().map_err(|source| LibraryError::Correlation {
                     id: rec.id.clone(),
-                    message,
+                    field: "kind.wilson",
+                    source,
                 })?;
             }
             let w = &v.wilson;

@@ -5,7 +5,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use crate::tfun::{Table, TempFn};
+use crate::correlations::{Table, TempFn};
 
 /// How a value was obtained.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]

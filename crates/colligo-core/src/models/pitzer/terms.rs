@@ -62,7 +62,7 @@ pub fn aphi_crp94(t_k: f64) -> f64 {
 
 /// A_φ of Møller (1988) eq. 13 (valid 273.15–573.15 K).
 pub fn aphi_m88(t_k: f64) -> f64 {
-    crate::tfun::moller1988_eq13(
+    crate::correlations::moller1988_eq13(
         t_k,
         &[
             3.369_015_32e-1,

@@ -1,12 +1,12 @@
 //! The user's own solutes and ingredients: define, list, remove, and carry
 //! them between projects through a user library file.
 
+use colligo_core::correlations::TempFn;
 use colligo_core::library::{
     Cite, Confidence, IngredientCategory, IngredientRecord, IngredientSolute, InsolubleRecord,
     IonCount, NorrishRecord, SoluteCategory, SoluteKind, SoluteRecord,
 };
 use colligo_core::quantity::{parse_number, slug};
-use colligo_core::tfun::TempFn;
 use egui::{RichText, TextEdit};
 
 use crate::app::commands::{Action, Command, Edit};

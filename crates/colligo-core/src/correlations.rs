@@ -117,22 +117,93 @@ impl TempFn {
         matches!(self, TempFn::Constant(_))
     }
 
-    /// Checks the coefficient count of the variable-length forms.
-    pub fn check(&self) -> Result<(), String> {
-        let (name, need, got) = match self {
-            TempFn::Archer1992(a) => ("Archer1992", 24, a.len()),
-            TempFn::Moller1988(a) => ("Moller1988", 8, a.len()),
-            TempFn::Archer1999(a) => ("Archer1999", 6, a.len()),
-            TempFn::Spencer1990(a) => ("Spencer1990", 6, a.len()),
-            TempFn::HolmesMesmer1986(a) => ("HolmesMesmer1986", 7, a.len()),
-            _ => return Ok(()),
-        };
-        if need == got {
-            Ok(())
-        } else {
-            Err(format!("{name} needs {need} coefficients, got {got}"))
+    /// The coefficients, in the order of the variant's fields.
+    fn coefficients(&self) -> Vec<f64> {
+        match self {
+            TempFn::Constant(v) => vec![*v],
+            TempFn::ReciprocalT { a, b } => vec![*a, *b],
+            TempFn::Taylor {
+                t_ref_k,
+                value,
+                d1,
+                d2,
+            } => vec![*t_ref_k, *value, *d1, *d2],
+            TempFn::Hovey1993 { t_ref_k, a, b, c } => vec![*t_ref_k, *a, *b, *c],
+            TempFn::Moller1988(v)
+            | TempFn::Archer1999(v)
+            | TempFn::Archer1992(v)
+            | TempFn::Spencer1990(v)
+            | TempFn::HolmesMesmer1986(v) => v.clone(),
         }
     }
+
+    /// Checks the coefficient count of the variable-length forms, that
+    /// every coefficient is finite, and that a reference temperature is
+    /// positive.
+    ///
+    /// # Errors
+    /// [`CorrelationError`] naming the problem.
+    pub fn check(&self) -> Result<(), CorrelationError> {
+        let count = match self {
+            TempFn::Archer1992(a) => Some(("Archer1992", 24, a.len())),
+            TempFn::Moller1988(a) => Some(("Moller1988", 8, a.len())),
+            TempFn::Archer1999(a) => Some(("Archer1999", 6, a.len())),
+            TempFn::Spencer1990(a) => Some(("Spencer1990", 6, a.len())),
+            TempFn::HolmesMesmer1986(a) => Some(("HolmesMesmer1986", 7, a.len())),
+            _ => None,
+        };
+        if let Some((form, need, got)) = count
+            && need != got
+        {
+            return Err(CorrelationError::CoefficientCount { form, need, got });
+        }
+        if let Some(v) = self.coefficients().into_iter().find(|v| !v.is_finite()) {
+            return Err(CorrelationError::NonFinite { value: v });
+        }
+        if let TempFn::Taylor { t_ref_k, .. } | TempFn::Hovey1993 { t_ref_k, .. } = self
+            && *t_ref_k <= 0.0
+        {
+            return Err(CorrelationError::ReferenceTemperature { t_ref_k: *t_ref_k });
+        }
+        Ok(())
+    }
+}
+
+/// What is wrong with a correlation's coefficients or a table.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+#[non_exhaustive]
+pub enum CorrelationError {
+    /// A variable-length form with the wrong number of coefficients.
+    #[error("{form} needs {need} coefficients, got {got}")]
+    CoefficientCount {
+        /// The form.
+        form: &'static str,
+        /// Coefficients it needs.
+        need: usize,
+        /// Coefficients given.
+        got: usize,
+    },
+    /// A coefficient or table value that is not a finite number.
+    #[error("{value} is not a finite number")]
+    NonFinite {
+        /// The value.
+        value: f64,
+    },
+    /// A reference temperature at or below 0 K.
+    #[error("reference temperature {t_ref_k} K is not above 0 K")]
+    ReferenceTemperature {
+        /// The value, K.
+        t_ref_k: f64,
+    },
+    /// A table without rows.
+    #[error("empty table")]
+    EmptyTable,
+    /// A table whose x values do not rise.
+    #[error("x values not increasing at {x}")]
+    NotIncreasing {
+        /// The first x out of order.
+        x: f64,
+    },
 }
 
 /// Møller (1988) eq. 13 with coefficients `a`.
@@ -230,17 +301,22 @@ impl Table {
     }
 
     /// Checks that the table has points with strictly increasing, finite x.
-    pub fn check(&self) -> Result<(), String> {
+    ///
+    /// # Errors
+    /// [`CorrelationError`] naming the problem.
+    pub fn check(&self) -> Result<(), CorrelationError> {
         if self.0.is_empty() {
-            return Err("empty table".into());
+            return Err(CorrelationError::EmptyTable);
+        }
+        if let Some(p) = self.0.iter().find(|p| !p.0.is_finite() || !p.1.is_finite()) {
+            return Err(CorrelationError::NonFinite {
+                value: if p.0.is_finite() { p.1 } else { p.0 },
+            });
         }
         for w in self.0.windows(2) {
-            if w[1].0.partial_cmp(&w[0].0) != Some(std::cmp::Ordering::Greater) {
-                return Err(format!("x values not increasing at {}", w[1].0));
+            if w[1].0 <= w[0].0 {
+                return Err(CorrelationError::NotIncreasing { x: w[1].0 });
             }
-        }
-        if self.0.iter().any(|p| !p.0.is_finite() || !p.1.is_finite()) {
-            return Err("non-finite value".into());
         }
         Ok(())
     }
