@@ -324,3 +324,111 @@ fn corrupt_project_names_the_file() {
     assert!(String::from_utf8_lossy(&out.stderr).contains("version 99"));
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn every_subcommand_has_generated_help() {
+    for (sub, options) in [
+        (
+            "eval",
+            &[
+                "--variant",
+                "--mix",
+                "--temperature",
+                "--pressure",
+                "--storage",
+                "--model",
+                "--json",
+            ][..],
+        ),
+        (
+            "freeze",
+            &["--from", "--to", "--step", "--json", "--mix"][..],
+        ),
+        (
+            "sweep",
+            &[
+                "--ingredient",
+                "--from",
+                "--to",
+                "--steps",
+                "--csv",
+                "--json",
+            ][..],
+        ),
+        ("batch", &["FORMULAS.csv", "--properties", "--model"][..]),
+        ("solve", &["--ingredient", "--target", "--json"][..]),
+    ] {
+        for help in [vec![sub, "--help"], vec!["help", sub]] {
+            let out = colligo(&help);
+            assert!(out.status.success(), "{help:?}");
+            let text = String::from_utf8_lossy(&out.stdout);
+            assert!(text.contains(&format!("Usage: colligo {sub}")), "{text}");
+            for o in options {
+                assert!(text.contains(o), "{sub} --help does not name {o}:\n{text}");
+            }
+        }
+    }
+    let out = colligo(&["--help"]);
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    for sub in ["eval", "freeze", "sweep", "batch", "solve"] {
+        assert!(text.contains(sub), "{text}");
+    }
+    // The model choice lists every model, and the batch help every property key.
+    let text = String::from_utf8_lossy(&colligo(&["eval", "--help"]).stdout).into_owned();
+    for m in ["auto", "ideal", "norrish", "ross", "zsr", "pitzer"] {
+        assert!(text.contains(m), "{m}: {text}");
+    }
+    let text = String::from_utf8_lossy(&colligo(&["batch", "--help"]).stdout).into_owned();
+    assert!(text.contains("osmolality_mosmol_per_kg") && text.contains("storage_temperature_c"));
+}
+
+#[test]
+fn unknown_subcommand_fails_with_a_suggestion_and_opens_no_window() {
+    for (typed, suggested) in [("evl", Some("eval")), ("frobnicate", None)] {
+        let out = colligo(&[typed]);
+        // A usage error (2), not the window's failure to start (1) here
+        // without a display.
+        assert_eq!(out.status.code(), Some(2), "{typed}");
+        let err = String::from_utf8_lossy(&out.stderr);
+        assert!(err.contains("unrecognized subcommand"), "{err}");
+        assert!(err.contains(typed), "{err}");
+        assert!(
+            !err.contains("window") && !err.contains("panicked"),
+            "{err}"
+        );
+        if let Some(s) = suggested {
+            assert!(err.contains(&format!("'{s}'")), "{err}");
+        }
+    }
+    // Options of a subcommand are checked the same way.
+    let out = colligo(&["eval", "--mix", "water=100g", "--jsn"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("--json"));
+}
+
+#[test]
+fn freeze_temperatures_take_units() {
+    let brine = "water=900g, sodium_chloride=100g";
+    let v = json(&colligo(&[
+        "freeze", "--mix", brine, "--from", "-1F", "--to", "-40", "--step", "1", "--json",
+    ]));
+    // -1 °F = (-1 - 32) · 5/9 °C by the definition of the Fahrenheit scale.
+    let first = v["points"][0]["temperature_c"].as_f64().unwrap_or(0.0);
+    assert!((first - (-33.0 * 5.0 / 9.0)).abs() < 1e-9, "{first}");
+    // 14 °F is exactly -10 °C: the same curve as `--from -10`.
+    let f = colligo(&[
+        "freeze", "--mix", brine, "--from", "14F", "--to", "-12", "--json",
+    ]);
+    let c = colligo(&[
+        "freeze", "--mix", brine, "--from", "-10", "--to", "-12", "--json",
+    ]);
+    assert!(f.status.success() && c.status.success());
+    assert_eq!(f.stdout, c.stdout);
+    // A bare negative number is °C, with or without `=`.
+    let eq = colligo(&["freeze", "--mix", brine, "--from=-10", "--to=-12", "--json"]);
+    assert_eq!(eq.stdout, c.stdout);
+    let bad = colligo(&["freeze", "--mix", brine, "--from", "-1X"]);
+    assert_eq!(bad.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&bad.stderr).contains("--from"));
+}

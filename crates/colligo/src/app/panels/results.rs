@@ -5,10 +5,10 @@
 use colligo_core::quantity::{PressureUnit, TemperatureUnit};
 use egui::{RichText, Ui};
 
+use crate::CAUTIONS;
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::theme;
-use crate::report::CAUTIONS;
 
 /// The results panel (its collapsing sections keep their state in egui's
 /// memory, which eframe persists).

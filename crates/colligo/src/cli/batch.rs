@@ -5,31 +5,71 @@
 
 use std::collections::HashMap;
 use std::fmt::Write as _;
+use std::io::Write as _;
+use std::path::PathBuf;
 
-use anyhow::{Result, bail};
+use anyhow::{Context, Result, bail};
+use clap::Args;
 use colligo_core::composition::Composition;
+use colligo_core::csv::{csv_field, split_csv};
+use colligo_core::keys::ScalarKey;
 use colligo_core::models::{CapMode, Evaluator, ModelId, auto_choice};
 use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::water::{self, M_W, R, T_ZERO_C};
 use colligo_core::{Library, ModelError};
 
-use crate::cli::push_num;
-use crate::report;
-use colligo_core::csv::{csv_field, split_csv};
+use super::options::{ConditionArgs, KeyList, ModelChoice, parse_key_list};
+use super::output::push_num;
 
-/// Keys that follow from ln a_w alone (no freezing or boiling solve).
-const FAST_KEYS: [&str; 10] = [
-    "water_activity",
-    "erh_percent",
-    "vapor_pressure_pa",
-    "relative_lowering",
-    "osmolality_mosmol_per_kg",
-    "osmotic_pressure_mpa",
-    "water_percent",
-    "soluble_solids_percent",
-    "temperature_c",
-    "storage_temperature_c",
-];
+/// Options of `batch`.
+#[derive(Debug, Clone, Args)]
+#[command(after_help = batch_help())]
+pub struct BatchArgs {
+    /// CSV file of formulas: a `name` column, then one column per ingredient id (grams)
+    #[arg(value_name = "FORMULAS.csv")]
+    pub file: PathBuf,
+    /// The conditions (for every row).
+    #[command(flatten)]
+    pub conditions: ConditionArgs,
+    /// Water-activity model (for every row)
+    #[arg(long, value_enum, ignore_case = true, default_value = "auto")]
+    pub model: ModelChoice,
+    /// The columns to compute, comma-separated [default: all]
+    #[arg(long, value_name = "KEYS", value_parser = parse_key_list)]
+    pub properties: Option<KeyList>,
+}
+
+fn batch_help() -> String {
+    let keys: Vec<&str> = ScalarKey::ALL.iter().map(|k| k.as_str()).collect();
+    format!(
+        "Each row of FORMULAS.csv is one formula in grams; an empty cell is none. One CSV row per \
+formula goes to stdout, with the reason in the `error` column when a formula cannot be computed.\n\n\
+Properties: {}.",
+        keys.join(", ")
+    )
+}
+
+/// Runs `batch`.
+///
+/// # Errors
+/// An unreadable file, a header without a `name` column, or an unknown
+/// ingredient column. Rows that fail are reported in the output.
+pub fn run(a: &BatchArgs, base: &Library, out: &mut dyn std::io::Write) -> Result<()> {
+    let path = a.file.display();
+    let text = std::fs::read_to_string(&a.file).with_context(|| format!("reading {path}"))?;
+    let mut cond = Conditions::default();
+    a.conditions.apply(&mut cond);
+    let model = ModelId::from(a.model);
+    let keys: &[ScalarKey] = match &a.properties {
+        Some(KeyList(ks)) => ks,
+        None => &ScalarKey::ALL,
+    };
+    let rows = run_batch(base, &text, keys, model, &cond).with_context(|| path.to_string())?;
+    let mut w = std::io::BufWriter::with_capacity(1 << 16, out);
+    w.write_all(rows.as_bytes())?;
+    w.flush()?;
+    Ok(())
+}
 
 /// Runs a batch over the CSV `text`; returns the output CSV.
 ///
@@ -38,7 +78,7 @@ const FAST_KEYS: [&str; 10] = [
 pub fn run_batch(
     lib: &Library,
     text: &str,
-    keys: &[&str],
+    keys: &[ScalarKey],
     model: ModelId,
     cond: &Conditions,
 ) -> Result<String> {
@@ -65,11 +105,11 @@ pub fn run_batch(
         let ing = lib.ingredient_or_suggest(id)?;
         cols.push((i, ing));
     }
-    let fast = keys.iter().all(|k| FAST_KEYS.contains(k));
+    let fast = keys.iter().all(|k| !k.needs_full_evaluation());
     let wanted = Wanted {
-        freezing_point: keys.contains(&"freezing_point_c"),
-        boiling_point: keys.contains(&"boiling_point_c"),
-        ice_fraction: keys.contains(&"ice_fraction_of_water"),
+        freezing_point: keys.contains(&ScalarKey::FreezingPointC),
+        boiling_point: keys.contains(&ScalarKey::BoilingPointC),
+        ice_fraction: keys.contains(&ScalarKey::IceFractionOfWater),
         contributions: false,
     };
     let t = cond.temperature_k;
@@ -79,7 +119,7 @@ pub fn run_batch(
     out.push_str("name");
     for k in keys {
         out.push(',');
-        out.push_str(k);
+        out.push_str(k.as_str());
     }
     out.push_str(",error\n");
     // One evaluator per (model, solute set); rows usually repeat the set of
@@ -162,18 +202,18 @@ pub fn run_batch(
                 let total = comp.total_kg();
                 for (v, k) in values.iter_mut().zip(keys) {
                     *v = Some(match *k {
-                        "water_activity" => aw,
-                        "erh_percent" => 100.0 * aw,
-                        "vapor_pressure_pa" => aw * p_sat,
-                        "relative_lowering" => 1.0 - aw,
-                        "osmolality_mosmol_per_kg" => -ln_aw / M_W * 1000.0,
-                        "osmotic_pressure_mpa" => -rt_over_v * ln_aw,
-                        "water_percent" => 100.0 * comp.water_kg / total,
-                        "soluble_solids_percent" => {
+                        ScalarKey::WaterActivity => aw,
+                        ScalarKey::ErhPercent => 100.0 * aw,
+                        ScalarKey::VaporPressurePa => aw * p_sat,
+                        ScalarKey::RelativeLowering => 1.0 - aw,
+                        ScalarKey::OsmolalityMosmolPerKg => -ln_aw / M_W * 1000.0,
+                        ScalarKey::OsmoticPressureMpa => -rt_over_v * ln_aw,
+                        ScalarKey::WaterPercent => 100.0 * comp.water_kg / total,
+                        ScalarKey::SolubleSolidsPercent => {
                             100.0 * dissolved_kg / (comp.water_kg + dissolved_kg)
                         }
-                        "temperature_c" => t - T_ZERO_C,
-                        "storage_temperature_c" => cond.storage_temperature_k - T_ZERO_C,
+                        ScalarKey::TemperatureC => t - T_ZERO_C,
+                        ScalarKey::StorageTemperatureC => cond.storage_temperature_k - T_ZERO_C,
                         _ => f64::NAN,
                     });
                 }
@@ -181,7 +221,7 @@ pub fn run_batch(
                 let p = properties::evaluate(lib, &comp, model, cond, wanted)
                     .map_err(|e| e.to_string())?;
                 for (v, k) in values.iter_mut().zip(keys) {
-                    *v = report::scalar(&p, k);
+                    *v = k.read(&p);
                 }
             }
             Ok(())
