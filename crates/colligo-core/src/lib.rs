@@ -6,7 +6,6 @@
 //! line are thin layers over this crate.
 
 pub mod composition;
-pub mod csv;
 pub mod error;
 pub mod formula;
 pub mod goal;

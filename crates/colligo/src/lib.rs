@@ -2,6 +2,7 @@
 
 pub mod app;
 pub mod cli;
+pub mod csv_out;
 
 /// The cautions shown with every result a person may act on: the results
 /// panel, and the command line's `eval`, `solve`, and the JSON of `freeze`

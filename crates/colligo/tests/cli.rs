@@ -432,3 +432,55 @@ fn freeze_temperatures_take_units() {
     assert_eq!(bad.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&bad.stderr).contains("--from"));
 }
+
+#[test]
+fn batch_names_with_line_breaks_round_trip() {
+    let dir = std::env::temp_dir().join(format!("colligo-roundtrip-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap_or_else(|e| panic!("{e}"));
+    let name = "syrup, \"two\"\nlines";
+    let quoted = "\"syrup, \"\"two\"\"\nlines\"";
+    // Record 2 spans lines 2-3; line 4 is empty and line 5 blank; the bad
+    // row starts on line 6.
+    let input = format!("name,water,sucrose\n{quoted},100,50\n\n   \nbad,100,lots\nplain,100,50\n");
+    let csv_in = dir.join("in.csv");
+    std::fs::write(&csv_in, &input).unwrap_or_else(|e| panic!("{e}"));
+    let out = colligo(&[
+        "batch",
+        csv_in.to_str().unwrap_or_default(),
+        "--properties",
+        "water_activity",
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout).into_owned();
+    assert!(text.contains(quoted), "written quoted: {text}");
+    let rows: Vec<csv::StringRecord> = csv::ReaderBuilder::new()
+        .from_reader(text.as_bytes())
+        .records()
+        .map(|r| r.unwrap_or_else(|e| panic!("{e}: {text}")))
+        .collect();
+    assert_eq!(rows.len(), 3, "{text}");
+    assert_eq!(rows[0].get(0), Some(name));
+    assert_eq!(rows[0].get(2), Some(""));
+    // The same formula under a plain name gives the same a_w.
+    assert_eq!(rows[2].get(0), Some("plain"));
+    assert_eq!(rows[0].get(1), rows[2].get(1));
+    assert!(rows[0].get(1).and_then(|s| s.parse::<f64>().ok()).is_some());
+    assert_eq!(rows[1].get(0), Some("bad"));
+    let err = rows[1].get(2).unwrap_or_default();
+    assert!(
+        err.starts_with("line 6: ") && err.contains("not a number"),
+        "{err}"
+    );
+    // The output reads back as input too (its extra columns name no
+    // ingredient, so that is an error naming the column).
+    let again = dir.join("again.csv");
+    std::fs::write(&again, &text).unwrap_or_else(|e| panic!("{e}"));
+    let out = colligo(&["batch", again.to_str().unwrap_or_default()]);
+    assert!(!out.status.success());
+    assert!(String::from_utf8_lossy(&out.stderr).contains("water_activity"));
+    let _ = std::fs::remove_dir_all(&dir);
+}

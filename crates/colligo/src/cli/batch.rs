@@ -4,14 +4,12 @@
 //! solutes, and only the requested properties are computed.
 
 use std::collections::HashMap;
-use std::fmt::Write as _;
 use std::io::Write as _;
 use std::path::PathBuf;
 
 use anyhow::{Context, Result, bail};
 use clap::Args;
 use colligo_core::composition::Composition;
-use colligo_core::csv::{csv_field, split_csv};
 use colligo_core::keys::ScalarKey;
 use colligo_core::models::{CapMode, Evaluator, ModelId, auto_choice};
 use colligo_core::properties::{self, Conditions, Wanted};
@@ -20,6 +18,7 @@ use colligo_core::{Library, ModelError};
 
 use super::options::{ConditionArgs, KeyList, ModelChoice, parse_key_list};
 use super::output::push_num;
+use crate::csv_out;
 
 /// Options of `batch`.
 #[derive(Debug, Clone, Args)]
@@ -66,12 +65,20 @@ pub fn run(a: &BatchArgs, base: &Library, out: &mut dyn std::io::Write) -> Resul
     };
     let rows = run_batch(base, &text, keys, model, &cond).with_context(|| path.to_string())?;
     let mut w = std::io::BufWriter::with_capacity(1 << 16, out);
-    w.write_all(rows.as_bytes())?;
+    w.write_all(&rows)?;
     w.flush()?;
     Ok(())
 }
 
+/// Whether a record is a blank line (one field of spaces at most).
+fn blank(r: &csv::StringRecord) -> bool {
+    r.len() == 1 && r.get(0).is_some_and(|f| f.trim().is_empty())
+}
+
 /// Runs a batch over the CSV `text`; returns the output CSV.
+///
+/// Blank lines are skipped; quoted fields may hold commas, quotes and line
+/// breaks. An error row names the line its record starts on.
 ///
 /// # Errors
 /// A header that names no `name` column or an unknown ingredient.
@@ -81,15 +88,23 @@ pub fn run_batch(
     keys: &[ScalarKey],
     model: ModelId,
     cond: &Conditions,
-) -> Result<String> {
-    let mut lines = text
-        .lines()
-        .enumerate()
-        .filter(|(_, l)| !l.trim().is_empty());
-    let Some((_, header)) = lines.next() else {
-        bail!("empty file");
+) -> Result<Vec<u8>> {
+    let mut reader = csv::ReaderBuilder::new()
+        .has_headers(false)
+        .flexible(true)
+        .from_reader(text.as_bytes());
+    let mut fields = csv::StringRecord::new();
+    let header: Vec<String> = loop {
+        if !reader.read_record(&mut fields)? {
+            bail!("empty file");
+        }
+        if !blank(&fields) {
+            break fields
+                .iter()
+                .map(|h| h.trim_start_matches('\u{feff}').to_string())
+                .collect();
+        }
     };
-    let header = split_csv(header.trim_start_matches('\u{feff}'));
     let name_col = header
         .iter()
         .position(|h| h.trim().eq_ignore_ascii_case("name"));
@@ -115,13 +130,13 @@ pub fn run_batch(
     let t = cond.temperature_k;
     let p_sat = water::p_sat_liquid(t);
     let rt_over_v = R * t / water::molar_volume_liquid(t) / 1e6;
-    let mut out = String::with_capacity(64 * 1024);
-    out.push_str("name");
+    let mut out = csv_out::builder().from_writer(Vec::with_capacity(64 * 1024));
+    out.write_field("name")?;
     for k in keys {
-        out.push(',');
-        out.push_str(k.as_str());
+        out.write_field(k.as_str())?;
     }
-    out.push_str(",error\n");
+    out.write_record(["error"])?;
+    let mut num = String::new();
     // One evaluator per (model, solute set); rows usually repeat the set of
     // their predecessor, which is checked without hashing.
     let mut evaluators: Vec<Evaluator<'_>> = Vec::new();
@@ -131,8 +146,11 @@ pub fn run_batch(
     let mut set: Vec<usize> = Vec::new();
     let mut comp = Composition::new();
     let mut values: Vec<Option<f64>> = vec![None; keys.len()];
-    for (lineno, line) in lines {
-        let fields = split_csv(line);
+    while reader.read_record(&mut fields)? {
+        if blank(&fields) {
+            continue;
+        }
+        let lineno = fields.position().map_or(0, |p| p.line());
         let name = fields.get(name_col).map_or("", |s| s.trim());
         let row = (|| -> Result<(), String> {
             comp.water_kg = 0.0;
@@ -226,24 +244,25 @@ pub fn run_batch(
             }
             Ok(())
         })();
-        out.push_str(&csv_field(if name.is_empty() { "" } else { name }));
+        out.write_field(name)?;
         match row {
             Ok(()) => {
                 for v in &values {
-                    out.push(',');
+                    num.clear();
                     if let Some(x) = v {
-                        push_num(&mut out, *x);
+                        push_num(&mut num, *x);
                     }
+                    out.write_field(&num)?;
                 }
-                out.push_str(",\n");
+                out.write_record([""])?;
             }
             Err(e) => {
                 for _ in keys {
-                    out.push(',');
+                    out.write_field("")?;
                 }
-                let _ = writeln!(out, ",{}", csv_field(&format!("line {}: {e}", lineno + 1)));
+                out.write_record([format!("line {lineno}: {e}")])?;
             }
         }
     }
-    Ok(out)
+    Ok(csv_out::finish(out)?)
 }

@@ -5,12 +5,12 @@
 use std::fmt::Write as _;
 
 use colligo_core::Properties;
-use colligo_core::csv::csv_field;
 use colligo_core::keys::ScalarKey;
 use colligo_core::properties::{FreezingCurve, IcePoint};
+use csv::QuoteStyle;
 use serde::ser::{Serialize, SerializeMap, Serializer};
 
-use crate::CAUTIONS;
+use crate::{CAUTIONS, csv_out};
 
 /// The scalar properties of `eval --json`, keyed and ordered by
 /// [`ScalarKey::ALL`]; a missing or non-finite value is `null`.
@@ -345,38 +345,43 @@ pub fn freezing_table(c: &FreezingCurve) -> String {
 
 /// The table of `sweep`: one row per amount (in g), the [`ScalarKey::ALL`]
 /// columns, the model and the error of a point that failed; CSV when `csv`,
-/// else tab-separated.
+/// else tab-separated (where only the error is quoted, by the CSV rule).
 pub fn sweep_table<E: std::fmt::Display>(
     id: &str,
     amounts_kg: &[f64],
     rows: &[Result<Properties, E>],
     csv: bool,
 ) -> String {
-    let sep = if csv { "," } else { "\t" };
-    let mut text = String::new();
-    let _ = write!(text, "{id}_g");
-    for k in ScalarKey::ALL {
-        let _ = write!(text, "{sep}{k}");
+    let mut b = csv_out::builder();
+    if !csv {
+        b.delimiter(b'\t').quote_style(QuoteStyle::Never);
     }
-    let _ = writeln!(text, "{sep}model{sep}error");
-    for (kg, r) in amounts_kg.iter().zip(rows) {
-        let _ = write!(text, "{}", fmt_num(kg * 1000.0));
-        match r {
-            Ok(p) => {
-                for k in ScalarKey::ALL {
-                    let _ = write!(text, "{sep}{}", k.read(p).map_or(String::new(), fmt_num));
+    csv_out::text_with(&b, |w| {
+        w.write_field(format!("{id}_g"))?;
+        for k in ScalarKey::ALL {
+            w.write_field(k.as_str())?;
+        }
+        w.write_record(["model", "error"])?;
+        for (kg, r) in amounts_kg.iter().zip(rows) {
+            w.write_field(fmt_num(kg * 1000.0))?;
+            match r {
+                Ok(p) => {
+                    for k in ScalarKey::ALL {
+                        w.write_field(k.read(p).map_or(String::new(), fmt_num))?;
+                    }
+                    w.write_record([p.model.as_str(), ""])?;
                 }
-                let _ = writeln!(text, "{sep}{}{sep}", p.model);
-            }
-            Err(e) => {
-                for _ in ScalarKey::ALL {
-                    text.push_str(sep);
+                Err(e) => {
+                    for _ in ScalarKey::ALL {
+                        w.write_field("")?;
+                    }
+                    let e = e.to_string();
+                    w.write_record(["", &if csv { e } else { csv_out::quote(&e) }])?;
                 }
-                let _ = writeln!(text, "{sep}{sep}{}", csv_field(&e.to_string()));
             }
         }
-    }
-    text
+        Ok(())
+    })
 }
 
 /// `v` with 10 significant digits, as [`push_num`] writes it.
@@ -430,5 +435,27 @@ mod tests {
         assert_eq!(fmt_num(3_169.824_486_313_972), "3169.824486");
         assert_eq!(fmt_num(f64::NAN), "");
         assert_eq!(fmt_num(1.5e-7), "1.500000000e-7");
+    }
+
+    #[test]
+    fn sweep_tables_quote_only_the_error() {
+        let rows: Vec<Result<Properties, String>> = vec![Err("no water, \"none\"".into())];
+        let empties = ",".repeat(ScalarKey::ALL.len() + 2);
+        let csv = sweep_table("water", &[0.0], &rows, true);
+        let mut lines = csv.lines();
+        assert!(lines.next().is_some_and(
+            |h| h.starts_with("water_g,water_activity,") && h.ends_with(",model,error")
+        ));
+        assert_eq!(
+            lines.next(),
+            Some(format!("0{empties}\"no water, \"\"none\"\"\"").as_str())
+        );
+        let tsv = sweep_table("water", &[0.0], &rows, false);
+        let tabs = "\t".repeat(ScalarKey::ALL.len() + 2);
+        assert!(tsv.starts_with("water_g\twater_activity\t"), "{tsv}");
+        assert!(
+            tsv.ends_with(&format!("\n0{tabs}\"no water, \"\"none\"\"\"\n")),
+            "{tsv}"
+        );
     }
 }
