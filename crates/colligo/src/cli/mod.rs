@@ -20,6 +20,7 @@ use std::io::Write;
 use std::path::{Path, PathBuf};
 
 use anyhow::{Context, Result};
+use clap::error::ErrorKind;
 use clap::{CommandFactory, Parser, Subcommand};
 use colligo_core::Library;
 
@@ -103,6 +104,20 @@ where
         Some([one]) if names_a_project(one) => {
             return Ok(Launch::Window(Some(PathBuf::from(one))));
         }
+        Some([first, rest @ ..]) if names_a_project(first) => {
+            return Err(Cli::command().error(
+                ErrorKind::UnknownArgument,
+                format!(
+                    "a project file opens the window and takes no more arguments (got {}); \
+to compute without the window, put a subcommand first: colligo eval {} …",
+                    rest.iter()
+                        .map(|a| format!("'{}'", a.to_string_lossy()))
+                        .collect::<Vec<_>>()
+                        .join(" "),
+                    first.to_string_lossy()
+                ),
+            ));
+        }
         _ => {}
     }
     Cli::try_parse_from(args).map(|c| Launch::Run(c.command))
@@ -167,7 +182,16 @@ mod tests {
             Some(clap::error::ErrorKind::InvalidSubcommand)
         );
         assert!(parse(["colligo", "frobnicate"]).is_err());
-        assert!(parse(["colligo", "a.ron", "b.ron"]).is_err());
+        let e = parse(["colligo", "a.ron", "--json"]).err();
+        assert_eq!(
+            e.as_ref().map(clap::Error::kind),
+            Some(ErrorKind::UnknownArgument)
+        );
+        let text = e.map(|e| e.to_string()).unwrap_or_default();
+        assert!(
+            text.contains("'--json'") && text.contains("colligo eval a.ron"),
+            "{text}"
+        );
     }
 
     #[test]
