@@ -92,4 +92,47 @@ mod tests {
         assert_eq!(rows[0].get(0), Some(name));
         assert_eq!(rows[0].get(1), Some("0.5"));
     }
+
+    #[test]
+    fn comparison_export_reads_back_names_and_errors_with_line_breaks() {
+        use crate::app::panels::compare::{Comparison, VariantRow};
+        use colligo_core::properties::{self, Wanted};
+        let lib = colligo_core::Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        let f = colligo_core::Formula::new(
+            "syrup",
+            colligo_core::formula::parse_mix("water=100g, sucrose=50g")
+                .unwrap_or_else(|e| panic!("{e}")),
+        );
+        let comp = f.composition(&lib).unwrap_or_else(|e| panic!("{e}"));
+        let p = properties::evaluate(
+            &lib,
+            &comp,
+            colligo_core::ModelId::Auto,
+            &colligo_core::Conditions::default(),
+            Wanted::ALL,
+        )
+        .unwrap_or_else(|e| panic!("{e}"));
+        let aw = p.water_activity;
+        let mut cmp = Comparison::default();
+        cmp.rows = vec![
+            VariantRow {
+                name: "Syrup, \"light\"\nsecond line".into(),
+                props: Ok(p),
+            },
+            VariantRow {
+                name: "Dry".into(),
+                props: Err("no water\n(check the lines)".into()),
+            },
+        ];
+        let text = cmp.csv();
+        let mut r = csv::ReaderBuilder::new().from_reader(text.as_bytes());
+        let rows: Vec<csv::StringRecord> = r.records().filter_map(Result::ok).collect();
+        assert_eq!(rows.len(), 2, "{text}");
+        assert_eq!(rows[0].get(0), Some("Syrup, \"light\"\nsecond line"));
+        assert_eq!(rows[0].get(1).and_then(|s| s.parse().ok()), Some(aw));
+        assert_eq!(rows[0].get(8), Some(""));
+        assert_eq!(rows[1].get(0), Some("Dry"));
+        assert_eq!(rows[1].get(1), Some(""));
+        assert_eq!(rows[1].get(8), Some("no water\n(check the lines)"));
+    }
 }

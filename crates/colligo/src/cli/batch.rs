@@ -16,7 +16,7 @@ use colligo_core::properties::{self, Conditions, Wanted};
 use colligo_core::water::{self, M_W, R, T_ZERO_C};
 use colligo_core::{Library, ModelError};
 
-use super::options::{ConditionArgs, KeyList, ModelChoice, parse_key_list};
+use super::options::{ConditionArgs, KeyList, ModelOption, parse_key_list};
 use super::output::push_num;
 use crate::csv_out;
 
@@ -32,7 +32,7 @@ pub struct BatchArgs {
     pub conditions: ConditionArgs,
     /// Water-activity model (for every row)
     #[arg(long, value_enum, ignore_case = true, default_value = "auto")]
-    pub model: ModelChoice,
+    pub model: ModelOption,
     /// The columns to compute, comma-separated [default: all]
     #[arg(long, value_name = "KEYS", value_parser = parse_key_list)]
     pub properties: Option<KeyList>,

@@ -66,12 +66,12 @@ impl ConditionArgs {
 pub struct ModelArgs {
     /// Water-activity model [default: the project's, or auto]
     #[arg(long, value_enum, ignore_case = true)]
-    pub model: Option<ModelChoice>,
+    pub model: Option<ModelOption>,
 }
 
 /// The models a user can choose on the command line.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum ModelChoice {
+pub enum ModelOption {
     /// Norrish for non-electrolytes only, Pitzer for electrolytes only, ZSR for both
     Auto,
     /// Raoult's law with dissociation
@@ -86,15 +86,15 @@ pub enum ModelChoice {
     Pitzer,
 }
 
-impl From<ModelChoice> for ModelId {
-    fn from(m: ModelChoice) -> ModelId {
+impl From<ModelOption> for ModelId {
+    fn from(m: ModelOption) -> ModelId {
         match m {
-            ModelChoice::Auto => ModelId::Auto,
-            ModelChoice::Ideal => ModelId::Ideal,
-            ModelChoice::Norrish => ModelId::Norrish,
-            ModelChoice::Ross => ModelId::Ross,
-            ModelChoice::Zsr => ModelId::Zsr,
-            ModelChoice::Pitzer => ModelId::Pitzer,
+            ModelOption::Auto => ModelId::Auto,
+            ModelOption::Ideal => ModelId::Ideal,
+            ModelOption::Norrish => ModelId::Norrish,
+            ModelOption::Ross => ModelId::Ross,
+            ModelOption::Zsr => ModelId::Zsr,
+            ModelOption::Pitzer => ModelId::Pitzer,
         }
     }
 }
@@ -223,11 +223,11 @@ mod tests {
 
     #[test]
     fn model_choices_are_the_model_ids() {
-        let names: Vec<String> = ModelChoice::value_variants()
+        let names: Vec<String> = ModelOption::value_variants()
             .iter()
             .filter_map(|c| Some(c.to_possible_value()?.get_name().to_string()))
             .collect();
-        let ids: Vec<String> = ModelChoice::value_variants()
+        let ids: Vec<String> = ModelOption::value_variants()
             .iter()
             .map(|&c| ModelId::from(c).as_str().to_string())
             .collect();
