@@ -6,7 +6,6 @@
 //! library) are hard checks. Rows tagged `Mem` (recalled, unconfirmed) are
 //! compared and reported but never fail the suite.
 
-use colligo_core::csv::split_csv;
 use std::collections::HashMap;
 use std::path::PathBuf;
 
@@ -64,34 +63,45 @@ impl Row {
     }
 }
 
-/// Reads `tests/data/<name>.csv`.
+/// Reads `tests/data/<name>.csv`: a header, then one row per record (RFC
+/// 4180 quoting, so a quoted field may span lines); blank lines and lines
+/// starting with `#` are skipped.
 pub fn table(name: &str) -> Vec<Row> {
     let path: PathBuf = [env!("CARGO_MANIFEST_DIR"), "data", &format!("{name}.csv")]
         .iter()
         .collect();
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
-    let mut lines = text
-        .lines()
-        .enumerate()
-        .filter(|(_, l)| !l.trim().is_empty() && !l.starts_with('#'));
-    let (_, header) = lines
+    let mut records = csv::ReaderBuilder::new()
+        .has_headers(false)
+        .flexible(true)
+        .comment(Some(b'#'))
+        .from_reader(text.as_bytes())
+        .into_records()
+        .map(|r| r.unwrap_or_else(|e| panic!("{name}.csv: {e}")))
+        .filter(|r| !(r.len() == 1 && r.get(0).is_some_and(|f| f.trim().is_empty())));
+    let header: Vec<String> = records
         .next()
-        .unwrap_or_else(|| panic!("{name}.csv is empty"));
-    let header = split_csv(header);
-    lines
-        .map(|(i, l)| {
-            let f = split_csv(l);
+        .unwrap_or_else(|| panic!("{name}.csv is empty"))
+        .iter()
+        .map(str::to_string)
+        .collect();
+    records
+        .map(|f| {
+            let line = f.position().map_or(0, |p| p.line() as usize);
             assert_eq!(
                 f.len(),
                 header.len(),
-                "{name}.csv line {}: {} fields, header has {}",
-                i + 1,
+                "{name}.csv line {line}: {} fields, header has {}",
                 f.len(),
                 header.len()
             );
             Row {
-                line: i + 1,
-                fields: header.iter().cloned().zip(f).collect(),
+                line,
+                fields: header
+                    .iter()
+                    .cloned()
+                    .zip(f.iter().map(str::to_string))
+                    .collect(),
             }
         })
         .collect()

@@ -84,6 +84,15 @@ impl Composition {
         c
     }
 
+    /// Mean molar mass of `solute` as the ingredients brought it (an
+    /// ingredient may state its own, e.g. for a DP4+ fraction), kg/mol; 0
+    /// when absent.
+    pub fn molar_mass_of(&self, solute: SoluteIdx) -> f64 {
+        self.solutes
+            .binary_search_by_key(&solute, |s| s.solute)
+            .map_or(0.0, |i| self.solutes[i].kg / self.solutes[i].mol)
+    }
+
     /// Moles of `solute`, 0 when absent.
     pub fn mol_of(&self, solute: SoluteIdx) -> f64 {
         self.solutes

@@ -6,6 +6,7 @@ use std::str::FromStr;
 
 use crate::error::{FormulaError, ModelError};
 use crate::formula::Formula;
+use crate::keys::ScalarKey;
 use crate::library::Library;
 use crate::models::ModelChoice;
 use crate::properties::{self, Conditions, Properties, Wanted};
@@ -34,12 +35,12 @@ pub enum Target {
 
 impl Target {
     /// The property's key (as in `eval --json`).
-    pub fn key(&self) -> &'static str {
+    pub fn key(&self) -> ScalarKey {
         match self {
-            Target::WaterActivity(_) => "water_activity",
-            Target::ErhPercent(_) => "erh_percent",
-            Target::FreezingPointC(_) => "freezing_point_c",
-            Target::IceFraction { .. } => "ice_fraction_of_water",
+            Target::WaterActivity(_) => ScalarKey::WaterActivity,
+            Target::ErhPercent(_) => ScalarKey::ErhPercent,
+            Target::FreezingPointC(_) => ScalarKey::FreezingPointC,
+            Target::IceFraction { .. } => ScalarKey::IceFractionOfWater,
         }
     }
 
@@ -109,30 +110,22 @@ impl Target {
     }
 
     fn read(&self, p: &Properties) -> Option<f64> {
-        match self {
-            Target::WaterActivity(_) => Some(p.water_activity),
-            Target::ErhPercent(_) => Some(p.erh_percent),
-            Target::FreezingPointC(_) => p.freezing_point_c,
-            Target::IceFraction { .. } => p.ice_fraction_of_water,
-        }
+        self.key().read(p)
     }
 }
 
 impl fmt::Display for Target {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let key = self.key();
         match self {
-            Target::WaterActivity(v) => write!(f, "water_activity={v}"),
-            Target::ErhPercent(v) => write!(f, "erh_percent={v}"),
-            Target::FreezingPointC(v) => write!(f, "freezing_point_c={v}"),
+            Target::WaterActivity(v) | Target::ErhPercent(v) | Target::FreezingPointC(v) => {
+                write!(f, "{key}={v}")
+            }
             Target::IceFraction {
                 fraction,
                 storage_k,
             } => {
-                write!(
-                    f,
-                    "ice_fraction_of_water@{}C={fraction}",
-                    storage_k - T_ZERO_C
-                )
+                write!(f, "{key}@{}C={fraction}", storage_k - T_ZERO_C)
             }
         }
     }
@@ -151,11 +144,12 @@ impl FromStr for Target {
             .parse()
             .map_err(|_| format!("`{value}` is not a number"))?;
         let key = key.trim();
-        let t = match key {
-            "water_activity" | "aw" | "a_w" => Target::WaterActivity(v),
-            "erh_percent" | "erh" => Target::ErhPercent(v),
-            "freezing_point_c" => Target::FreezingPointC(v),
-            k if k.starts_with("ice_fraction_of_water") => {
+        let ice = ScalarKey::IceFractionOfWater.as_str();
+        let t = match (key, key.parse::<ScalarKey>()) {
+            ("aw" | "a_w", _) | (_, Ok(ScalarKey::WaterActivity)) => Target::WaterActivity(v),
+            ("erh", _) | (_, Ok(ScalarKey::ErhPercent)) => Target::ErhPercent(v),
+            (_, Ok(ScalarKey::FreezingPointC)) => Target::FreezingPointC(v),
+            (k, _) if k.starts_with(ice) => {
                 let storage = match k.split_once('@') {
                     Some((_, t)) => parse_temperature(t).map_err(|e| e.to_string())?,
                     None => T_ZERO_C - 18.0,
@@ -167,7 +161,10 @@ impl FromStr for Target {
             }
             _ => {
                 return Err(format!(
-                    "unknown target `{key}` (use water_activity, erh_percent, freezing_point_c or ice_fraction_of_water@T)"
+                    "unknown target `{key}` (use {}, {}, {} or {ice}@T)",
+                    ScalarKey::WaterActivity,
+                    ScalarKey::ErhPercent,
+                    ScalarKey::FreezingPointC,
                 ));
             }
         };

@@ -7,11 +7,11 @@
 
 pub mod composition;
 pub mod correlations;
-pub mod csv;
 pub mod error;
 pub mod formula;
 pub mod goal;
 pub mod guidance;
+pub mod keys;
 pub mod library;
 pub mod models;
 pub mod project;
@@ -26,6 +26,7 @@ pub mod water;
 pub use composition::Composition;
 pub use error::{FormulaError, LibraryError, ModelError, ParseError, ProjectError, SolverError};
 pub use formula::{Formula, Line};
+pub use keys::ScalarKey;
 pub use library::Library;
 pub use models::{Model, ModelChoice};
 pub use project::Project;

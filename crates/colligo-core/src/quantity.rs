@@ -287,6 +287,24 @@ impl TemperatureUnit {
 /// # Errors
 /// [`FormulaError::BadQuantity`].
 pub fn parse_temperature(text: &str) -> Result<f64, FormulaError> {
+    parse_temperature_in(text).map(|(v, unit)| unit.to_kelvin(v))
+}
+
+/// Reads a temperature as [`parse_temperature`] does and returns it in °C.
+/// A value given in °C (or a bare number) comes back exactly as written,
+/// without a round trip through kelvin.
+///
+/// # Errors
+/// [`FormulaError::BadQuantity`].
+pub fn parse_temperature_c(text: &str) -> Result<f64, FormulaError> {
+    parse_temperature_in(text).map(|(v, unit)| match unit {
+        TemperatureUnit::Celsius => v,
+        _ => unit.to_kelvin(v) - T_ZERO_C,
+    })
+}
+
+/// The number and unit of a temperature, checked to lie above absolute zero.
+fn parse_temperature_in(text: &str) -> Result<(f64, TemperatureUnit), FormulaError> {
     let bad = |reason: &str| FormulaError::BadQuantity {
         what: "temperature",
         text: text.to_string(),
@@ -308,7 +326,7 @@ pub fn parse_temperature(text: &str) -> Result<f64, FormulaError> {
     if !k.is_finite() || k <= 0.0 {
         return Err(bad("below absolute zero"));
     }
-    Ok(k)
+    Ok((v, unit))
 }
 
 /// A pressure unit.
@@ -468,6 +486,19 @@ mod tests {
         assert!(close(parse_temperature("0").unwrap_or(1.0), 273.15));
         assert!(parse_temperature("-300C").is_err());
         assert!(parse_temperature("warm").is_err());
+    }
+
+    #[test]
+    fn temperatures_in_celsius() {
+        // °C input comes back bit for bit: -0.1 + 273.15 - 273.15 would not.
+        assert_eq!(parse_temperature_c("-0.1").ok(), Some(-0.1));
+        assert_eq!(parse_temperature_c("-18.3 °C").ok(), Some(-18.3));
+        // By the definitions of the scales: 14 °F = -10 °C, 263.15 K = -10 °C.
+        let close = |a: f64, b: f64| (a - b).abs() < 1e-9;
+        assert!(close(parse_temperature_c("14F").unwrap_or(0.0), -10.0));
+        assert!(close(parse_temperature_c("263.15K").unwrap_or(0.0), -10.0));
+        assert!(parse_temperature_c("-300C").is_err());
+        assert!(parse_temperature_c("cold").is_err());
     }
 
     #[test]

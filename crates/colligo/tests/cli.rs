@@ -324,3 +324,163 @@ fn corrupt_project_names_the_file() {
     assert!(String::from_utf8_lossy(&out.stderr).contains("version 99"));
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn every_subcommand_has_generated_help() {
+    for (sub, options) in [
+        (
+            "eval",
+            &[
+                "--variant",
+                "--mix",
+                "--temperature",
+                "--pressure",
+                "--storage",
+                "--model",
+                "--json",
+            ][..],
+        ),
+        (
+            "freeze",
+            &["--from", "--to", "--step", "--json", "--mix"][..],
+        ),
+        (
+            "sweep",
+            &[
+                "--ingredient",
+                "--from",
+                "--to",
+                "--steps",
+                "--csv",
+                "--json",
+            ][..],
+        ),
+        ("batch", &["FORMULAS.csv", "--properties", "--model"][..]),
+        ("solve", &["--ingredient", "--target", "--json"][..]),
+    ] {
+        for help in [vec![sub, "--help"], vec!["help", sub]] {
+            let out = colligo(&help);
+            assert!(out.status.success(), "{help:?}");
+            let text = String::from_utf8_lossy(&out.stdout);
+            assert!(text.contains(&format!("Usage: colligo {sub}")), "{text}");
+            for o in options {
+                assert!(text.contains(o), "{sub} --help does not name {o}:\n{text}");
+            }
+        }
+    }
+    let out = colligo(&["--help"]);
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    for sub in ["eval", "freeze", "sweep", "batch", "solve"] {
+        assert!(text.contains(sub), "{text}");
+    }
+    // The model choice lists every model, and the batch help every property key.
+    let text = String::from_utf8_lossy(&colligo(&["eval", "--help"]).stdout).into_owned();
+    for m in ["auto", "ideal", "norrish", "ross", "zsr", "pitzer"] {
+        assert!(text.contains(m), "{m}: {text}");
+    }
+    let text = String::from_utf8_lossy(&colligo(&["batch", "--help"]).stdout).into_owned();
+    assert!(text.contains("osmolality_mosmol_per_kg") && text.contains("storage_temperature_c"));
+}
+
+#[test]
+fn unknown_subcommand_fails_with_a_suggestion_and_opens_no_window() {
+    for (typed, suggested) in [("evl", Some("eval")), ("frobnicate", None)] {
+        let out = colligo(&[typed]);
+        // A usage error (2), not the window's failure to start (1) here
+        // without a display.
+        assert_eq!(out.status.code(), Some(2), "{typed}");
+        let err = String::from_utf8_lossy(&out.stderr);
+        assert!(err.contains("unrecognized subcommand"), "{err}");
+        assert!(err.contains(typed), "{err}");
+        assert!(
+            !err.contains("window") && !err.contains("panicked"),
+            "{err}"
+        );
+        if let Some(s) = suggested {
+            assert!(err.contains(&format!("'{s}'")), "{err}");
+        }
+    }
+    // Options of a subcommand are checked the same way.
+    let out = colligo(&["eval", "--mix", "water=100g", "--jsn"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("--json"));
+}
+
+#[test]
+fn freeze_temperatures_take_units() {
+    let brine = "water=900g, sodium_chloride=100g";
+    let v = json(&colligo(&[
+        "freeze", "--mix", brine, "--from", "-1F", "--to", "-40", "--step", "1", "--json",
+    ]));
+    // -1 °F = (-1 - 32) · 5/9 °C by the definition of the Fahrenheit scale.
+    let first = v["points"][0]["temperature_c"].as_f64().unwrap_or(0.0);
+    assert!((first - (-33.0 * 5.0 / 9.0)).abs() < 1e-9, "{first}");
+    // 14 °F is exactly -10 °C: the same curve as `--from -10`.
+    let f = colligo(&[
+        "freeze", "--mix", brine, "--from", "14F", "--to", "-12", "--json",
+    ]);
+    let c = colligo(&[
+        "freeze", "--mix", brine, "--from", "-10", "--to", "-12", "--json",
+    ]);
+    assert!(f.status.success() && c.status.success());
+    assert_eq!(f.stdout, c.stdout);
+    // A bare negative number is °C, with or without `=`.
+    let eq = colligo(&["freeze", "--mix", brine, "--from=-10", "--to=-12", "--json"]);
+    assert_eq!(eq.stdout, c.stdout);
+    let bad = colligo(&["freeze", "--mix", brine, "--from", "-1X"]);
+    assert_eq!(bad.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&bad.stderr).contains("--from"));
+}
+
+#[test]
+fn batch_names_with_line_breaks_round_trip() {
+    let dir = std::env::temp_dir().join(format!("colligo-roundtrip-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap_or_else(|e| panic!("{e}"));
+    let name = "syrup, \"two\"\nlines";
+    let quoted = "\"syrup, \"\"two\"\"\nlines\"";
+    // Record 2 spans lines 2-3; line 4 is empty and line 5 blank; the bad
+    // row starts on line 6.
+    let input = format!("name,water,sucrose\n{quoted},100,50\n\n   \nbad,100,lots\nplain,100,50\n");
+    let csv_in = dir.join("in.csv");
+    std::fs::write(&csv_in, &input).unwrap_or_else(|e| panic!("{e}"));
+    let out = colligo(&[
+        "batch",
+        csv_in.to_str().unwrap_or_default(),
+        "--properties",
+        "water_activity",
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout).into_owned();
+    assert!(text.contains(quoted), "written quoted: {text}");
+    let rows: Vec<csv::StringRecord> = csv::ReaderBuilder::new()
+        .from_reader(text.as_bytes())
+        .records()
+        .map(|r| r.unwrap_or_else(|e| panic!("{e}: {text}")))
+        .collect();
+    assert_eq!(rows.len(), 3, "{text}");
+    assert_eq!(rows[0].get(0), Some(name));
+    assert_eq!(rows[0].get(2), Some(""));
+    // The same formula under a plain name gives the same a_w.
+    assert_eq!(rows[2].get(0), Some("plain"));
+    assert_eq!(rows[0].get(1), rows[2].get(1));
+    assert!(rows[0].get(1).and_then(|s| s.parse::<f64>().ok()).is_some());
+    assert_eq!(rows[1].get(0), Some("bad"));
+    let err = rows[1].get(2).unwrap_or_default();
+    assert!(
+        err.starts_with("line 6: ") && err.contains("not a number"),
+        "{err}"
+    );
+    // The output reads back as input too (its extra columns name no
+    // ingredient, so that is an error naming the column).
+    let again = dir.join("again.csv");
+    std::fs::write(&again, &text).unwrap_or_else(|e| panic!("{e}"));
+    let out = colligo(&["batch", again.to_str().unwrap_or_default()]);
+    assert!(!out.status.success());
+    assert!(String::from_utf8_lossy(&out.stderr).contains("water_activity"));
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -718,7 +718,7 @@ impl Library {
             .iter()
             .map(|ing| {
                 let id = ing.id();
-                let mut d = levenshtein(&q, id);
+                let mut d = strsim::levenshtein(&q, id);
                 if id.contains(&q) || (!id.is_empty() && q.contains(id)) {
                     d = d.min(2);
                 }
@@ -729,7 +729,7 @@ impl Library {
                     if n.contains(&q) {
                         d = d.min(2);
                     }
-                    d = d.min(levenshtein(&q, &n) + 1);
+                    d = d.min(strsim::levenshtein(&q, &n) + 1);
                 }
                 (d, id)
             })
@@ -761,22 +761,6 @@ fn check_id(id: &str) -> Result<(), LibraryError> {
     }
 }
 
-/// Levenshtein edit distance over chars.
-pub fn levenshtein(a: &str, b: &str) -> usize {
-    let b: Vec<char> = b.chars().collect();
-    let mut prev: Vec<usize> = (0..=b.len()).collect();
-    let mut cur = vec![0; b.len() + 1];
-    for (i, ca) in a.chars().enumerate() {
-        cur[0] = i + 1;
-        for (j, cb) in b.iter().enumerate() {
-            let sub = prev[j] + usize::from(ca != *cb);
-            cur[j + 1] = sub.min(prev[j + 1] + 1).min(cur[j] + 1);
-        }
-        std::mem::swap(&mut prev, &mut cur);
-    }
-    prev[b.len()]
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -789,10 +773,13 @@ mod tests {
     }
 
     #[test]
-    fn levenshtein_basics() {
-        assert_eq!(levenshtein("kitten", "sitting"), 3);
-        assert_eq!(levenshtein("", "abc"), 3);
-        assert_eq!(levenshtein("sucrose", "sucrose"), 0);
+    fn suggestion_distance_counts_characters() {
+        // `suggest` ranks by strsim's Levenshtein distance, which counts
+        // characters (not bytes), so accented names are one edit away.
+        assert_eq!(strsim::levenshtein("kitten", "sitting"), 3);
+        assert_eq!(strsim::levenshtein("", "abc"), 3);
+        assert_eq!(strsim::levenshtein("sucrose", "sucrose"), 0);
+        assert_eq!(strsim::levenshtein("crème", "creme"), 1);
     }
 
     #[test]

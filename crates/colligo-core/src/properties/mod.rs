@@ -8,6 +8,7 @@
 //! | `freezing.rs` | freezing point, ice fraction with its warm start and eutectic detection, freezing curve |
 //! | `boiling.rs` | boiling point at a pressure, co-solvent partial pressure |
 //! | `diagnose.rs` | warnings: solubility, and the validity of each solute's parameters under the model in use |
+//! | `quick.rs` | a_w and what follows from it for many formulas in a row (batch), one cached evaluator per solute set |
 //! | `spread.rs` | every model side by side and the uncertainty band of the applicable ones |
 //! | `lines.rs` | each formula line's share of the batch, of the undissolved solids and of the lowering |
 //! | `vapor.rs` | vapour pressure over a temperature range |
@@ -25,6 +26,7 @@ pub mod derived;
 mod diagnose;
 mod freezing;
 mod lines;
+mod quick;
 mod spread;
 mod vapor;
 
@@ -47,6 +49,7 @@ pub use freezing::{
     freezing_point_with, ice_fraction, ice_temperature_for,
 };
 pub use lines::{LineShare, line_shares};
+pub use quick::{AwProperties, QuickEvaluator};
 pub use spread::{ModelResult, Spread, compare_models};
 pub use vapor::{VaporPoint, vapor_pressure_curve};
 
@@ -209,11 +212,7 @@ pub fn evaluate(
     let mut dissolved_kg = 0.0;
     for (i, c) in sol.solutes.iter().enumerate() {
         let s = &lib.solutes[c.solute];
-        let molar_mass_kg_per_mol = comp
-            .solutes
-            .iter()
-            .find(|a| a.solute == c.solute)
-            .map_or(0.0, |a| a.kg / a.mol);
+        let molar_mass_kg_per_mol = comp.molar_mass_of(c.solute);
         let d_kg = dissolved[i] * molar_mass_kg_per_mol;
         dissolved_kg += d_kg;
         solutes.push(SoluteReport {

@@ -442,67 +442,78 @@ pub fn chart_now(
 
 /// CSV text of chart data.
 pub fn chart_csv(d: &ChartData) -> String {
-    use std::fmt::Write as _;
-    let mut s = String::new();
-    match d {
-        ChartData::Sweep {
-            ingredient,
-            sweep,
-            vapor_pa,
-        } => {
-            let _ = writeln!(
-                s,
-                "{ingredient}_g,water_activity,freezing_point_c,vapor_pressure_pa"
-            );
-            for i in 0..sweep.amount_kg.len() {
-                let _ = writeln!(
-                    s,
-                    "{},{},{},{}",
-                    sweep.amount_kg[i] * 1000.0,
-                    sweep.water_activity[i],
-                    sweep.freezing_point_c.get(i).copied().unwrap_or(f64::NAN),
-                    vapor_pa[i]
-                );
-            }
-        }
-        ChartData::PerGram(series) => {
-            let _ = writeln!(s, "ingredient,grams_added,aw_lowering");
-            for (id, g, d) in series {
-                for (x, y) in g.iter().zip(d) {
-                    let _ = writeln!(s, "{id},{x},{y}");
+    crate::csv_out::text(|w| {
+        match d {
+            ChartData::Sweep {
+                ingredient,
+                sweep,
+                vapor_pa,
+            } => {
+                w.write_record([
+                    format!("{ingredient}_g").as_str(),
+                    "water_activity",
+                    "freezing_point_c",
+                    "vapor_pressure_pa",
+                ])?;
+                for i in 0..sweep.amount_kg.len() {
+                    w.write_record([
+                        (sweep.amount_kg[i] * 1000.0).to_string(),
+                        sweep.water_activity[i].to_string(),
+                        sweep
+                            .freezing_point_c
+                            .get(i)
+                            .copied()
+                            .unwrap_or(f64::NAN)
+                            .to_string(),
+                        vapor_pa[i].to_string(),
+                    ])?;
                 }
             }
-        }
-        ChartData::Freezing(c) => {
-            let _ = writeln!(
-                s,
-                "temperature_c,ice_fraction_of_water,ice_fraction_of_total,water_activity"
-            );
-            for p in &c.points {
-                let _ = writeln!(
-                    s,
-                    "{},{},{},{}",
-                    p.temperature_c,
-                    p.ice_fraction_of_water,
-                    p.ice_fraction_of_total,
-                    p.water_activity
-                );
+            ChartData::PerGram(series) => {
+                w.write_record(["ingredient", "grams_added", "aw_lowering"])?;
+                for (id, g, d) in series {
+                    for (x, y) in g.iter().zip(d) {
+                        w.write_record([id.as_str(), &x.to_string(), &y.to_string()])?;
+                    }
+                }
+            }
+            ChartData::Freezing(c) => {
+                w.write_record([
+                    "temperature_c",
+                    "ice_fraction_of_water",
+                    "ice_fraction_of_total",
+                    "water_activity",
+                ])?;
+                for p in &c.points {
+                    w.write_record([
+                        p.temperature_c.to_string(),
+                        p.ice_fraction_of_water.to_string(),
+                        p.ice_fraction_of_total.to_string(),
+                        p.water_activity.to_string(),
+                    ])?;
+                }
+            }
+            ChartData::VaporPressure(pts) => {
+                w.write_record([
+                    "temperature_c",
+                    "formula_vapor_pressure_pa",
+                    "water_vapor_pressure_pa",
+                ])?;
+                for p in pts {
+                    w.write_record([
+                        p.temperature_c.to_string(),
+                        p.formula_pa.to_string(),
+                        p.water_pa.to_string(),
+                    ])?;
+                }
+            }
+            ChartData::Failed(e) => {
+                w.write_record(["error"])?;
+                w.write_record([e.as_str()])?;
             }
         }
-        ChartData::VaporPressure(pts) => {
-            let _ = writeln!(
-                s,
-                "temperature_c,formula_vapor_pressure_pa,water_vapor_pressure_pa"
-            );
-            for p in pts {
-                let _ = writeln!(s, "{},{},{}", p.temperature_c, p.formula_pa, p.water_pa);
-            }
-        }
-        ChartData::Failed(e) => {
-            let _ = writeln!(s, "error\n{e}");
-        }
-    }
-    s
+        Ok(())
+    })
 }
 
 #[cfg(test)]

@@ -161,7 +161,7 @@ impl WorkbenchApp {
             data_dir: startup.data_dir,
         };
         if let Some((rec, project)) = app.recovery.pending(&app.base) {
-            let written = chrono_like(rec.written_unix_s);
+            let written = utc_minute(rec.written_unix_s);
             app.modal = Some(Modal::Recover {
                 project: Box::new(project),
                 path: rec.path,
@@ -401,26 +401,15 @@ impl WorkbenchApp {
     }
 }
 
-/// "YYYY-MM-DD HH:MM UTC" from Unix seconds (no date crate needed).
-fn chrono_like(secs: u64) -> String {
-    let days = secs / 86_400;
-    let rem = secs % 86_400;
-    // Civil-from-days (Howard Hinnant's algorithm).
-    let z = days as i64 + 719_468;
-    let era = z.div_euclid(146_097);
-    let doe = z - era * 146_097;
-    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
-    let y = yoe + era * 400;
-    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
-    let mp = (5 * doy + 2) / 153;
-    let d = doy - (153 * mp + 2) / 5 + 1;
-    let m = if mp < 10 { mp + 3 } else { mp - 9 };
-    let y = if m <= 2 { y + 1 } else { y };
-    format!(
-        "{y:04}-{m:02}-{d:02} {:02}:{:02} UTC",
-        rem / 3600,
-        (rem % 3600) / 60
-    )
+/// "YYYY-MM-DD HH:MM UTC" from Unix seconds.
+fn utc_minute(secs: u64) -> String {
+    const FORMAT: &[time::format_description::BorrowedFormatItem<'_>] =
+        time::macros::format_description!("[year]-[month]-[day] [hour]:[minute] UTC");
+    i64::try_from(secs)
+        .ok()
+        .and_then(|s| time::OffsetDateTime::from_unix_timestamp(s).ok())
+        .and_then(|t| t.format(FORMAT).ok())
+        .unwrap_or_else(|| format!("{secs} s after 1970-01-01 00:00 UTC"))
 }
 
 impl eframe::App for WorkbenchApp {
@@ -483,4 +472,20 @@ pub fn run(open: Option<PathBuf>) -> eframe::Result {
             })))
         }),
     )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::utc_minute;
+
+    #[test]
+    fn recovery_times_print_in_utc() {
+        // Seconds since the Epoch as POSIX (IEEE Std 1003.1, 4.16) defines
+        // them; the dates checked with Python's datetime.
+        assert_eq!(utc_minute(0), "1970-01-01 00:00 UTC");
+        assert_eq!(utc_minute(951_782_400), "2000-02-29 00:00 UTC");
+        assert_eq!(utc_minute(1_700_000_000), "2023-11-14 22:13 UTC");
+        assert_eq!(utc_minute(4_102_444_799), "2099-12-31 23:59 UTC");
+        assert!(utc_minute(u64::MAX).contains("after 1970"));
+    }
 }

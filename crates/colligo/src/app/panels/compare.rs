@@ -30,30 +30,43 @@ pub struct Comparison {
 impl Comparison {
     /// The table as CSV.
     pub fn csv(&self) -> String {
-        let mut s = String::from(
-            "variant,water_activity,erh_percent,freezing_point_c,ice_fraction_of_water,boiling_point_c,water_percent,soluble_solids_percent,error\n",
-        );
-        let o = |v: Option<f64>| v.map_or(String::new(), |x| x.to_string());
-        for r in &self.rows {
-            let name = colligo_core::csv::csv_field(&r.name);
-            match &r.props {
-                Ok(p) => s.push_str(&format!(
-                    "{name},{},{},{},{},{},{},{},\n",
-                    p.water_activity,
-                    p.erh_percent,
-                    o(p.freezing_point_c),
-                    o(p.ice_fraction_of_water),
-                    o(p.boiling_point_c),
-                    p.water_percent,
-                    p.soluble_solids_percent
-                )),
-                Err(e) => s.push_str(&format!(
-                    "{name},,,,,,,,{}\n",
-                    colligo_core::csv::csv_field(e)
-                )),
+        crate::csv_out::text(|w| {
+            w.write_record([
+                "variant",
+                "water_activity",
+                "erh_percent",
+                "freezing_point_c",
+                "ice_fraction_of_water",
+                "boiling_point_c",
+                "water_percent",
+                "soluble_solids_percent",
+                "error",
+            ])?;
+            let o = |v: Option<f64>| v.map_or(String::new(), |x| x.to_string());
+            for r in &self.rows {
+                match &r.props {
+                    Ok(p) => w.write_record([
+                        r.name.clone(),
+                        p.water_activity.to_string(),
+                        p.erh_percent.to_string(),
+                        o(p.freezing_point_c),
+                        o(p.ice_fraction_of_water),
+                        o(p.boiling_point_c),
+                        p.water_percent.to_string(),
+                        p.soluble_solids_percent.to_string(),
+                        String::new(),
+                    ])?,
+                    Err(e) => {
+                        w.write_field(&r.name)?;
+                        for _ in 0..7 {
+                            w.write_field("")?;
+                        }
+                        w.write_record([e])?;
+                    }
+                }
             }
-        }
-        s
+            Ok(())
+        })
     }
 
     /// Recomputes when the document changed.
@@ -211,23 +224,29 @@ impl Default for Ranking {
 impl Ranking {
     /// The ranking as CSV.
     pub fn csv(&self) -> String {
-        let mut s = String::from(
-            "rank,ingredient,aw_per_g_added,aw_per_g_removed,fp_k_per_g_added,fp_k_per_g_removed\n",
-        );
-        if let Ok(rows) = &self.rows {
-            for (k, r) in rows.iter().enumerate() {
-                s.push_str(&format!(
-                    "{},{},{},{},{},{}\n",
-                    k + 1,
-                    r.ingredient,
-                    r.aw_per_g_added,
-                    r.aw_per_g_removed,
-                    r.fp_per_g_added,
-                    r.fp_per_g_removed
-                ));
+        crate::csv_out::text(|w| {
+            w.write_record([
+                "rank",
+                "ingredient",
+                "aw_per_g_added",
+                "aw_per_g_removed",
+                "fp_k_per_g_added",
+                "fp_k_per_g_removed",
+            ])?;
+            if let Ok(rows) = &self.rows {
+                for (k, r) in rows.iter().enumerate() {
+                    w.write_record([
+                        (k + 1).to_string(),
+                        r.ingredient.clone(),
+                        r.aw_per_g_added.to_string(),
+                        r.aw_per_g_removed.to_string(),
+                        r.fp_per_g_added.to_string(),
+                        r.fp_per_g_removed.to_string(),
+                    ])?;
+                }
             }
-        }
-        s
+            Ok(())
+        })
     }
 
     /// Recomputes when the document changed.

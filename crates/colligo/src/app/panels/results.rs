@@ -5,12 +5,12 @@
 use colligo_core::quantity::{PressureUnit, TemperatureUnit, show_value};
 use egui::{RichText, Ui};
 
+use crate::CAUTIONS;
 use crate::app::commands::Command;
 use crate::app::compute::Evaluation;
 use crate::app::document::Document;
 use crate::app::panels::{Panel, View};
 use crate::app::theme;
-use crate::report::CAUTIONS;
 
 /// The results panel (its collapsing sections keep their state in egui's
 /// memory, which eframe persists).

@@ -1,0 +1,44 @@
+//! `colligo eval`: every property of one formula.
+
+use std::io::Write;
+
+use anyhow::Result;
+use clap::Args;
+use colligo_core::Library;
+use colligo_core::properties::{self, Wanted};
+
+use super::options::{ConditionArgs, FormulaArgs, ModelArgs};
+use super::output::{EvalJson, properties_table};
+
+/// Options of `eval`.
+#[derive(Debug, Clone, Args)]
+pub struct EvalArgs {
+    /// The formula.
+    #[command(flatten)]
+    pub formula: FormulaArgs,
+    /// The conditions.
+    #[command(flatten)]
+    pub conditions: ConditionArgs,
+    /// The model.
+    #[command(flatten)]
+    pub model: ModelArgs,
+    /// Print JSON instead of a table
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Runs `eval`.
+///
+/// # Errors
+/// Bad formula or project, or a failed evaluation.
+pub fn run(a: &EvalArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
+    let j = a.formula.job(base, &a.conditions, &a.model)?;
+    let comp = j.formula.composition(&j.lib)?;
+    let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
+    if a.json {
+        writeln!(out, "{}", serde_json::to_string_pretty(&EvalJson::new(&p))?)?;
+    } else {
+        write!(out, "{}", properties_table(&p, &j.title))?;
+    }
+    Ok(())
+}
