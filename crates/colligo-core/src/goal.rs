@@ -65,7 +65,11 @@ impl Target {
         }
     }
 
-    fn check(&self) -> Result<(), String> {
+    /// Checks that the property can take the value.
+    ///
+    /// # Errors
+    /// [`TargetError::OutOfRange`].
+    pub fn check(&self) -> Result<(), TargetError> {
         let v = self.value();
         let ok = v.is_finite()
             && match self {
@@ -84,9 +88,9 @@ impl Target {
         if ok {
             Ok(())
         } else {
-            Err(format!(
-                "target {self} is outside what the property can take"
-            ))
+            Err(TargetError::OutOfRange {
+                target: self.to_string(),
+            })
         }
     }
 
@@ -132,17 +136,17 @@ impl fmt::Display for Target {
 }
 
 impl FromStr for Target {
-    type Err = String;
+    type Err = TargetError;
     /// Reads `water_activity=0.85`, `erh_percent=80`, `freezing_point_c=-5`,
     /// `ice_fraction_of_water@-18C=0.7`.
-    fn from_str(s: &str) -> Result<Self, String> {
+    fn from_str(s: &str) -> Result<Self, TargetError> {
         let (key, value) = s
             .split_once('=')
-            .ok_or_else(|| format!("`{s}`: expected property=value, e.g. water_activity=0.85"))?;
+            .ok_or_else(|| TargetError::NoValue { text: s.into() })?;
         let v: f64 = value
             .trim()
             .parse()
-            .map_err(|_| format!("`{value}` is not a number"))?;
+            .map_err(|_| TargetError::NotANumber { text: value.into() })?;
         let key = key.trim();
         let ice = ScalarKey::IceFractionOfWater.as_str();
         let t = match (key, key.parse::<ScalarKey>()) {
@@ -151,7 +155,7 @@ impl FromStr for Target {
             (_, Ok(ScalarKey::FreezingPointC)) => Target::FreezingPointC(v),
             (k, _) if k.starts_with(ice) => {
                 let storage = match k.split_once('@') {
-                    Some((_, t)) => parse_temperature(t).map_err(|e| e.to_string())?,
+                    Some((_, t)) => parse_temperature(t)?,
                     None => T_ZERO_C - 18.0,
                 };
                 Target::IceFraction {
@@ -159,18 +163,46 @@ impl FromStr for Target {
                     storage_k: storage,
                 }
             }
-            _ => {
-                return Err(format!(
-                    "unknown target `{key}` (use {}, {}, {} or {ice}@T)",
-                    ScalarKey::WaterActivity,
-                    ScalarKey::ErhPercent,
-                    ScalarKey::FreezingPointC,
-                ));
-            }
+            _ => return Err(TargetError::UnknownKey { key: key.into() }),
         };
         t.check()?;
         Ok(t)
     }
+}
+
+/// Text that is not a usable target.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+#[non_exhaustive]
+pub enum TargetError {
+    /// No `=value`.
+    #[error("`{text}`: expected property=value, e.g. water_activity=0.85")]
+    NoValue {
+        /// What was given.
+        text: String,
+    },
+    /// The value is not a number.
+    #[error("`{text}` is not a number")]
+    NotANumber {
+        /// What was given.
+        text: String,
+    },
+    /// Not a property a target can be set on.
+    #[error(
+        "unknown target `{key}` (use water_activity, erh_percent, freezing_point_c or ice_fraction_of_water@T)"
+    )]
+    UnknownKey {
+        /// The key given.
+        key: String,
+    },
+    /// The storage temperature after `@` cannot be read.
+    #[error(transparent)]
+    Temperature(#[from] FormulaError),
+    /// A value the property cannot take.
+    #[error("target {target} is outside what the property can take")]
+    OutOfRange {
+        /// The target.
+        target: String,
+    },
 }
 
 /// Why a goal seek gave no amount.
@@ -198,8 +230,8 @@ pub enum GoalError {
         best_amount_kg: f64,
     },
     /// The target value makes no sense for the property.
-    #[error("{0}")]
-    BadTarget(String),
+    #[error(transparent)]
+    BadTarget(TargetError),
 }
 
 /// A found amount.

@@ -1,7 +1,7 @@
 //! The formula table: ingredient lines with amounts and units, computed
 //! columns, reordering, the ingredient picker and batch scaling.
 
-use colligo_core::Library;
+use colligo_core::library::SearchHit;
 use colligo_core::quantity::{AmountUnit, parse_amount, parse_amount_or, trim_float};
 use egui::{Color32, RichText, TextEdit};
 
@@ -28,70 +28,6 @@ pub struct FormulaPanel {
     scale_text: String,
     scale_error: Option<String>,
     synced_for: Option<(usize, usize)>,
-}
-
-/// A library ingredient matched by the picker.
-#[derive(Debug, Clone, PartialEq)]
-pub struct PickerHit {
-    /// Ingredient id.
-    pub id: String,
-    /// Display name.
-    pub name: String,
-    /// Category label.
-    pub category: &'static str,
-    /// What matched (a synonym, the category), when not the name.
-    pub matched: Option<String>,
-}
-
-/// Ingredients whose id, name, synonyms or category contain `query`
-/// (case-insensitive), best matches first.
-pub fn search(lib: &Library, query: &str, limit: usize) -> Vec<PickerHit> {
-    let q = query.trim().to_lowercase();
-    if q.is_empty() {
-        return Vec::new();
-    }
-    let mut hits: Vec<(u8, PickerHit)> = Vec::new();
-    for ing in &lib.ingredients {
-        let name = ing.name().to_lowercase();
-        let id = ing.id().to_lowercase();
-        let cat = ing.record.category.label();
-        let solute_cat = ing
-            .solutes
-            .first()
-            .filter(|_| ing.pure_solute)
-            .map(|(s, _, _)| lib.solutes[*s].record.category.label());
-        let (rank, matched) = if name.starts_with(&q) || id.starts_with(&q) {
-            (0, None)
-        } else if name.contains(&q) || id.contains(&q.replace(' ', "_")) {
-            (1, None)
-        } else if let Some(syn) = ing
-            .record
-            .synonyms
-            .iter()
-            .find(|s| s.to_lowercase().contains(&q))
-        {
-            (2, Some(syn.clone()))
-        } else if cat.contains(&q) || solute_cat.is_some_and(|c| c.contains(&q)) {
-            (3, Some(solute_cat.unwrap_or(cat).to_string()))
-        } else {
-            continue;
-        };
-        hits.push((
-            rank,
-            PickerHit {
-                id: ing.id().to_string(),
-                name: ing.name().to_string(),
-                category: solute_cat.unwrap_or(cat),
-                matched,
-            },
-        ));
-    }
-    hits.sort_by(|a, b| {
-        a.0.cmp(&b.0)
-            .then_with(|| a.1.name.len().cmp(&b.1.name.len()))
-            .then_with(|| a.1.name.cmp(&b.1.name))
-    });
-    hits.into_iter().take(limit).map(|(_, h)| h).collect()
 }
 
 impl Panel for FormulaPanel {
@@ -273,13 +209,13 @@ impl FormulaPanel {
                 .labelled_by(label.id);
             if r.lost_focus()
                 && ui.input(|i| i.key_pressed(egui::Key::Enter))
-                && let Some(h) = search(&doc.lib, &self.picker_query, 1).first()
+                && let Some(h) = doc.lib.search(&self.picker_query, 1).first()
             {
                 out.push(add_line(h, doc));
                 self.picker_query.clear();
             }
         });
-        let hits = search(&doc.lib, &self.picker_query, 10);
+        let hits = doc.lib.search(&self.picker_query, 10);
         if !self.picker_query.trim().is_empty() {
             egui::Frame::group(ui.style()).show(ui, |ui| {
                 if hits.is_empty() {
@@ -342,7 +278,7 @@ impl FormulaPanel {
     }
 }
 
-fn add_line(h: &PickerHit, doc: &Document) -> Command {
+fn add_line(h: &SearchHit, doc: &Document) -> Command {
     let unit = doc.project.units.amount;
     let unit = if unit == AmountUnit::Percent {
         AmountUnit::G

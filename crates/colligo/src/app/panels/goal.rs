@@ -129,7 +129,7 @@ impl GoalDialog {
             },
         };
         // Let the core's own check speak for impossible values.
-        t.to_string().parse::<Target>()?;
+        t.check().map_err(|e| e.to_string())?;
         Ok(t)
     }
 
