@@ -7,21 +7,15 @@ use clap::Args;
 use colligo_core::Library;
 use colligo_core::properties::{self, Wanted};
 
-use super::options::{ConditionArgs, FormulaArgs, ModelArgs};
+use super::options::JobArgs;
 use super::output::{EvalJson, properties_table};
 
 /// Options of `eval`.
 #[derive(Debug, Clone, Args)]
 pub struct EvalArgs {
-    /// The formula.
+    /// The formula, its conditions and the model.
     #[command(flatten)]
-    pub formula: FormulaArgs,
-    /// The conditions.
-    #[command(flatten)]
-    pub conditions: ConditionArgs,
-    /// The model.
-    #[command(flatten)]
-    pub model: ModelArgs,
+    pub job: JobArgs,
     /// Print JSON instead of a table
     #[arg(long)]
     pub json: bool,
@@ -32,7 +26,7 @@ pub struct EvalArgs {
 /// # Errors
 /// Bad formula or project, or a failed evaluation.
 pub fn run(a: &EvalArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
-    let j = a.formula.job(base, &a.conditions, &a.model)?;
+    let j = a.job.job(base)?;
     let comp = j.formula.composition(&j.lib)?;
     let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
     if a.json {

@@ -9,7 +9,7 @@ use colligo_core::properties;
 use colligo_core::quantity::parse_temperature_c;
 use colligo_core::water::T_ZERO_C;
 
-use super::options::{ConditionArgs, FormulaArgs, ModelArgs};
+use super::options::JobArgs;
 use super::output::{FreezingJson, freezing_table};
 
 /// Options of `freeze`.
@@ -19,15 +19,9 @@ use super::output::{FreezingJson, freezing_table};
 direction). Temperatures take C, F or K; a bare number is °C. Both ends lie between -60 and 0 °C."
 )]
 pub struct FreezeArgs {
-    /// The formula.
+    /// The formula, its conditions and the model.
     #[command(flatten)]
-    pub formula: FormulaArgs,
-    /// The conditions.
-    #[command(flatten)]
-    pub conditions: ConditionArgs,
-    /// The model.
-    #[command(flatten)]
-    pub model: ModelArgs,
+    pub job: JobArgs,
     /// First temperature of the curve (C, F or K; a bare number is °C)
     #[arg(long, value_name = "T", default_value = "-1", value_parser = parse_temperature_c, allow_hyphen_values = true)]
     pub from: f64,
@@ -70,7 +64,7 @@ pub fn parse_step(text: &str) -> Result<f64, String> {
 /// Bad formula or project, temperatures outside −60…0 °C, too many points,
 /// or a failed evaluation.
 pub fn run(a: &FreezeArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
-    let j = a.formula.job(base, &a.conditions, &a.model)?;
+    let j = a.job.job(base)?;
     let (from, to, step) = (a.from, a.to, a.step);
     if !(-60.0..=0.0).contains(&from) || !(-60.0..=0.0).contains(&to) {
         bail!("--from and --to must lie between -60 and 0 °C");

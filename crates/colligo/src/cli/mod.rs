@@ -219,7 +219,8 @@ mod tests {
         );
         assert_eq!((f.to, f.step), (-40.0, 0.5));
         assert!(
-            f.conditions
+            f.job
+                .conditions
                 .storage
                 .is_some_and(|k| (k - 248.15).abs() < 1e-9)
         );

@@ -146,6 +146,31 @@ pub struct Job {
     pub title: String,
 }
 
+/// What a formula subcommand works on: the formula's source, the
+/// conditions and the model.
+#[derive(Debug, Clone, Default, Args)]
+pub struct JobArgs {
+    /// Where the formula comes from.
+    #[command(flatten)]
+    pub formula: FormulaArgs,
+    /// The conditions.
+    #[command(flatten)]
+    pub conditions: ConditionArgs,
+    /// The model.
+    #[command(flatten)]
+    pub model: ModelArgs,
+}
+
+impl JobArgs {
+    /// The [`Job`] these options describe.
+    ///
+    /// # Errors
+    /// As [`FormulaArgs::job`].
+    pub fn job(&self, base: &Library) -> Result<Job> {
+        self.formula.job(base, &self.conditions, &self.model)
+    }
+}
+
 impl FormulaArgs {
     /// Builds the [`Job`] from the project and/or `--mix`, then applies the
     /// condition and model options.

@@ -7,7 +7,7 @@ use clap::Args;
 use colligo_core::Library;
 use colligo_core::goal::{Target, goal_seek};
 
-use super::options::{ConditionArgs, FormulaArgs, ModelArgs};
+use super::options::JobArgs;
 use super::output::{EvalJson, SolveJson, properties_table};
 
 /// Options of `solve`.
@@ -20,15 +20,9 @@ batch. When no amount reaches the target, the reason (and the closest value) is 
 exit code is 1."
 )]
 pub struct SolveArgs {
-    /// The formula.
+    /// The formula, its conditions and the model.
     #[command(flatten)]
-    pub formula: FormulaArgs,
-    /// The conditions.
-    #[command(flatten)]
-    pub conditions: ConditionArgs,
-    /// The model.
-    #[command(flatten)]
-    pub model: ModelArgs,
+    pub job: JobArgs,
     /// Id of the ingredient whose amount is solved for
     #[arg(long, value_name = "ID")]
     pub ingredient: String,
@@ -46,7 +40,7 @@ pub struct SolveArgs {
 /// Bad formula or project, or a target that cannot be reached (the error
 /// says why).
 pub fn run(a: &SolveArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
-    let j = a.formula.job(base, &a.conditions, &a.model)?;
+    let j = a.job.job(base)?;
     let id = a.ingredient.as_str();
     let target = a.target;
     let r = goal_seek(&j.lib, &j.formula, id, target, j.model, &j.cond)?;

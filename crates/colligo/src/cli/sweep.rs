@@ -7,7 +7,7 @@ use clap::Args;
 use colligo_core::Library;
 use colligo_core::sweep;
 
-use super::options::{ConditionArgs, FormulaArgs, ModelArgs, parse_mass_kg};
+use super::options::{JobArgs, parse_mass_kg};
 use super::output::{PropertiesJson, SweepJson, SweepPointJson, sweep_table};
 use crate::CAUTIONS;
 
@@ -18,15 +18,9 @@ use crate::CAUTIONS;
 there are steps + 1 points. The other lines of the formula stay as they are."
 )]
 pub struct SweepArgs {
-    /// The formula.
+    /// The formula, its conditions and the model.
     #[command(flatten)]
-    pub formula: FormulaArgs,
-    /// The conditions.
-    #[command(flatten)]
-    pub conditions: ConditionArgs,
-    /// The model.
-    #[command(flatten)]
-    pub model: ModelArgs,
+    pub job: JobArgs,
     /// Id of the ingredient to vary (its line is replaced, or added)
     #[arg(long, value_name = "ID")]
     pub ingredient: String,
@@ -54,7 +48,7 @@ pub struct SweepArgs {
 /// Bad formula or project, or an unknown ingredient. A point that cannot be
 /// computed is reported in its row instead.
 pub fn run(a: &SweepArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
-    let j = a.formula.job(base, &a.conditions, &a.model)?;
+    let j = a.job.job(base)?;
     let id = a.ingredient.as_str();
     j.lib.ingredient_or_suggest(id)?;
     let amounts = sweep::linspace(a.from, a.to, a.steps as usize + 1);
