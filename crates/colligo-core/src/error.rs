@@ -30,6 +30,16 @@ pub enum LibraryError {
         /// What is wrong.
         message: String,
     },
+    /// A field of an entry holds a value outside what the models can use.
+    #[error("`{id}`: {field}: {problem}")]
+    Field {
+        /// The entry.
+        id: String,
+        /// Path of the field within the entry, e.g. `norrish.t_range_c.1`.
+        field: String,
+        /// What is wrong.
+        problem: FieldProblem,
+    },
     /// A correlation or table of an entry has bad coefficients.
     #[error("`{id}`: {field}: {source}")]
     Correlation {
@@ -81,6 +91,75 @@ pub(crate) fn suggest_text(s: &[String]) -> String {
     }
 }
 
+impl LibraryError {
+    /// The message without the field path, for callers that show the path
+    /// themselves (a project's `user_solutes[0].norrish.k`).
+    pub fn detail(&self) -> String {
+        match self {
+            LibraryError::Field { id, problem, .. } => format!("`{id}`: {problem}"),
+            e => e.to_string(),
+        }
+    }
+}
+
+/// What is wrong with one field's value.
+#[derive(Debug, Clone, PartialEq, Error)]
+#[non_exhaustive]
+pub enum FieldProblem {
+    /// Not a finite number (NaN or an infinity; RON reads 1e309 as infinity).
+    #[error("{value} is not a finite number")]
+    NotFinite {
+        /// The value.
+        value: f64,
+    },
+    /// Outside the physical range.
+    #[error("{} is outside {} to {}", short(*.value), short(*.min), short(*.max))]
+    OutOfRange {
+        /// The value.
+        value: f64,
+        /// Lowest accepted.
+        min: f64,
+        /// Highest accepted.
+        max: f64,
+    },
+    /// A range whose low end is not below its high end.
+    #[error("the range {lo} to {hi} is empty")]
+    EmptyRange {
+        /// Low end.
+        lo: f64,
+        /// High end.
+        hi: f64,
+    },
+    /// A Norrish constant so negative that a_w would rise with solute.
+    #[error(
+        "K = {k} would make a_w rise as solute is added within the data (it must be at least {k_min:.3} for this max_mole_fraction)"
+    )]
+    RaisesWaterActivity {
+        /// K at an end of its temperature range.
+        k: f64,
+        /// The lowest K that keeps the binary falling.
+        k_min: f64,
+    },
+    /// Bad coefficients of a correlation or table.
+    #[error(transparent)]
+    Correlation(crate::correlations::CorrelationError),
+}
+
+/// A number for a message: plain for ordinary magnitudes, in scientific
+/// notation for huge or tiny ones (so 1e308 does not print 309 digits).
+pub fn short(v: f64) -> String {
+    let a = v.abs();
+    if v == 0.0 {
+        "0".into()
+    } else if !(1e-4..1e7).contains(&a) {
+        format!("{v:.3e}")
+    } else {
+        let s = format!("{v:.4}");
+        let s = s.trim_end_matches('0').trim_end_matches('.');
+        s.to_string()
+    }
+}
+
 /// Why a root finder stopped without an answer.
 #[derive(Debug, Clone, Copy, PartialEq, Error)]
 #[non_exhaustive]
@@ -107,6 +186,14 @@ pub enum SolverError {
         /// Last f.
         f: f64,
     },
+    /// An interval with no inside: lo not below hi, or an end not finite.
+    #[error("the search interval {} to {} is empty", short(*.lo), short(*.hi))]
+    EmptyInterval {
+        /// Lower end.
+        lo: f64,
+        /// Upper end.
+        hi: f64,
+    },
     /// The function returned NaN or an infinity.
     #[error("the function is not finite at x = {x}")]
     NonFinite {
@@ -122,9 +209,21 @@ pub enum ModelError {
     /// The mixture has no liquid water.
     #[error("the formula contains no water")]
     NoWater,
+    /// A model returned a value that is not a number, or a water activity
+    /// outside (0, 1]: the inputs are outside what it can represent.
+    #[error("{property} came out as {}, which is not a usable value: the formula is outside what the model can represent", short(*.value))]
+    NotUsable {
+        /// The property.
+        property: &'static str,
+        /// What came out.
+        value: f64,
+    },
     /// The temperature is outside every equation's range.
     #[error(
-        "temperature {t_c:.2} °C is outside the range of the water equations ({min_c:.0} to {max_c:.0} °C)"
+        "temperature {} °C is outside the range of the water equations ({} to {} °C)",
+        short(*.t_c),
+        signed(*.min_c),
+        signed(*.max_c)
     )]
     TemperatureOutOfRange {
         /// Requested, °C.
@@ -143,19 +242,19 @@ pub enum ModelError {
         source: SolverError,
     },
     /// No ice forms above the coldest temperature searched.
-    #[error("freezing point: no ice forms above {} °C", signed(*.min_c))]
+    #[error("no ice forms above {} °C", signed(*.min_c))]
     NoFreezingPoint {
         /// Coldest temperature searched, °C.
         min_c: f64,
     },
     /// The solution does not boil below the hottest temperature searched.
-    #[error("boiling point: the solution does not boil below {max_c:.0} °C at this pressure")]
+    #[error("the solution does not boil below {max_c:.0} °C at this pressure")]
     NoBoilingPoint {
         /// Hottest temperature searched, °C.
         max_c: f64,
     },
     /// An ambient pressure that no evaluation can use.
-    #[error("pressure: {pa} Pa is not a usable ambient pressure")]
+    #[error("pressure: {} Pa is not a usable ambient pressure", short(*.pa))]
     UnusablePressure {
         /// The pressure, Pa.
         pa: f64,
@@ -178,12 +277,26 @@ pub enum FormulaError {
         reason: String,
     },
     /// A negative or non-finite amount.
-    #[error("amount of `{ingredient}` must be a finite number ≥ 0, got {value}")]
+    #[error("amount of `{ingredient}` must be a finite number ≥ 0, got {}", short(*.value))]
     NegativeAmount {
         /// Ingredient id.
         ingredient: String,
         /// The value.
         value: f64,
+    },
+    /// A line heavier than any batch can be.
+    #[error(
+        "amount of `{ingredient}` is {} kg, above the largest a line may hold ({} kg)",
+        short(*.kg),
+        short(*.max_kg)
+    )]
+    TooLarge {
+        /// Ingredient id.
+        ingredient: String,
+        /// The amount, kg.
+        kg: f64,
+        /// The bound, kg.
+        max_kg: f64,
     },
     /// Percentages of batch add up to 100 % or more.
     #[error(

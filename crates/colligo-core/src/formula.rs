@@ -7,6 +7,9 @@ use crate::error::FormulaError;
 use crate::library::Library;
 use crate::quantity::{Amount, AmountUnit, parse_amount};
 
+/// The largest amount one line may hold, kg (10⁶ t): far above any batch,
+/// low enough that sums, moles and molalities stay finite numbers.
+pub const MAX_LINE_KG: f64 = 1.0e9;
 /// One line of a formula.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 #[serde(deny_unknown_fields)]
@@ -92,7 +95,7 @@ impl Formula {
     ///
     /// # Errors
     /// Unknown ingredients (with suggestions), negative or non-finite
-    /// amounts, percentages that leave no room.
+    /// amounts, a line above [`MAX_LINE_KG`], percentages that leave no room.
     pub fn resolve(&self, lib: &Library) -> Result<Resolved, FormulaError> {
         let mut weighed = 0.0;
         let mut pct = 0.0;
@@ -127,6 +130,13 @@ impl Formula {
         let mut line_kg = Vec::with_capacity(self.lines.len());
         for (line, &i) in self.lines.iter().zip(&idx) {
             let kg = line.amount().kg().unwrap_or(line.amount / 100.0 * batch);
+            if kg.is_nan() || kg > MAX_LINE_KG {
+                return Err(FormulaError::TooLarge {
+                    ingredient: line.ingredient.clone(),
+                    kg,
+                    max_kg: MAX_LINE_KG,
+                });
+            }
             comp.add_ingredient(lib, i, kg);
             line_kg.push(kg);
         }

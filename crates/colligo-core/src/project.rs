@@ -229,14 +229,16 @@ impl Project {
     /// # Errors
     /// The first user record that does not fit.
     pub fn library(&self, base: &Library) -> Result<Library, crate::error::LibraryError> {
-        let mut lib = base.clone();
-        for s in &self.user_solutes {
-            lib.add_user_solute(s.clone())?;
-        }
-        for i in &self.user_ingredients {
-            lib.add_ingredient(i.clone(), true)?;
-        }
-        Ok(lib)
+        self.library_at(base).map_err(|(_, e)| e)
+    }
+
+    /// As [`Project::library`], the error with the path of the field at fault.
+    fn library_at(&self, base: &Library) -> Result<Library, (String, crate::error::LibraryError)> {
+        base.with_user_records(
+            &self.user_solutes,
+            &self.user_ingredients,
+            ("user_solutes", "user_ingredients"),
+        )
     }
 
     /// The active variant (clamped).
@@ -313,8 +315,8 @@ impl Project {
             ));
         }
         let lib = self
-            .library(base)
-            .map_err(|e| invalid("user_solutes / user_ingredients".into(), e.to_string()))?;
+            .library_at(base)
+            .map_err(|(field, e)| invalid(field, e.detail()))?;
         let mut names = HashSet::new();
         for (vi, v) in self.variants.iter().enumerate() {
             if v.name.trim().is_empty() {

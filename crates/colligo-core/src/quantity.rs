@@ -145,15 +145,24 @@ pub fn slug(name: &str) -> String {
 /// with `trim`, trailing zeros go (`25 °C`), as in fields a user edits.
 /// Never a negative zero.
 pub fn show_value(v: f64, decimals: usize, trim: bool, symbol: &str) -> String {
-    let scale = 10f64.powi(decimals as i32);
-    let r = (v * scale).round() / scale;
-    let r = if r == 0.0 { 0.0 } else { r };
     let text = if trim {
-        trim_float(r)
+        let scale = 10f64.powi(decimals as i32);
+        trim_float((v * scale).round() / scale)
     } else {
-        format!("{r:.decimals$}")
+        fixed(v, decimals)
     };
     format!("{text} {symbol}")
+}
+
+/// `v` with `decimals` decimals, never a negative zero: a value that
+/// rounds to zero prints `0.00`, not `-0.00`. Non-finite values print as
+/// Rust prints them (callers show a dash for a missing value).
+pub fn fixed(v: f64, decimals: usize) -> String {
+    let s = format!("{v:.decimals$}");
+    match s.strip_prefix('-') {
+        Some(rest) if rest.bytes().all(|b| b == b'0' || b == b'.') => rest.to_string(),
+        _ => s,
+    }
 }
 
 fn split_number(text: &str) -> Option<(f64, &str)> {

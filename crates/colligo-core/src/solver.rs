@@ -166,7 +166,8 @@ pub fn brent(
 /// next call.
 ///
 /// # Errors
-/// As [`brent`]; `NoBracket` when f has one sign on all of `[lo, hi]`.
+/// As [`brent`]; `NoBracket` when f has one sign on all of `[lo, hi]`;
+/// `EmptyInterval` when `lo < hi` does not hold between finite ends.
 pub fn solve_warm(
     mut f: impl FnMut(f64) -> f64,
     lo: f64,
@@ -188,6 +189,10 @@ pub fn solve_warm(
             *pos = Some(p);
         }
     };
+    if !(lo.is_finite() && hi.is_finite() && lo < hi) {
+        return Err(SolverError::EmptyInterval { lo, hi });
+    }
+    let x0 = if x0.is_finite() { x0 } else { 0.5 * (lo + hi) };
     let mut x = x0.clamp(lo, hi);
     let mut fx = eval(x, &mut evals);
     if !fx.is_finite() {
@@ -348,6 +353,26 @@ mod tests {
         let r = solve_warm(f, -50.0, 50.0, -40.0, 0.0, SolveOptions::default())
             .unwrap_or_else(|e| panic!("{e}"));
         assert!((r.x - 1.2f64.tan()).abs() < 1e-8);
+    }
+
+    #[test]
+    fn warm_start_refuses_an_empty_or_nan_interval() {
+        let f = |x: f64| x - 1.0;
+        for (lo, hi) in [
+            (2.0, 1.0),
+            (f64::NAN, 1.0),
+            (0.0, f64::INFINITY),
+            (1.0, 1.0),
+        ] {
+            let e = solve_warm(f, lo, hi, 0.5, 1.0, SolveOptions::default());
+            assert!(
+                matches!(e, Err(SolverError::EmptyInterval { .. })),
+                "{lo}..{hi}: {e:?}"
+            );
+        }
+        let r = solve_warm(f, 0.0, 2.0, f64::NAN, 1.0, SolveOptions::default())
+            .unwrap_or_else(|e| panic!("{e}"));
+        assert!((r.x - 1.0).abs() < 1e-9);
     }
 
     #[test]

@@ -68,11 +68,12 @@ impl UserLibrary {
                 supported: USER_LIBRARY_VERSION,
             });
         }
-        lib.check(base).map_err(|e| ProjectError::Invalid {
-            path: shown,
-            field: "solutes / ingredients".into(),
-            message: e.to_string(),
-        })?;
+        lib.check_at(base)
+            .map_err(|(field, e)| ProjectError::Invalid {
+                path: shown,
+                field,
+                message: e.detail(),
+            })?;
         Ok(lib)
     }
 
@@ -81,14 +82,13 @@ impl UserLibrary {
     /// # Errors
     /// The first record that does not fit.
     pub fn check(&self, base: &Library) -> Result<(), LibraryError> {
-        let mut lib = base.clone();
-        for s in &self.solutes {
-            lib.add_user_solute(s.clone())?;
-        }
-        for i in &self.ingredients {
-            lib.add_ingredient(i.clone(), true)?;
-        }
-        Ok(())
+        self.check_at(base).map_err(|(_, e)| e)
+    }
+
+    /// As [`UserLibrary::check`], the error with the path of the field at fault.
+    fn check_at(&self, base: &Library) -> Result<(), (String, LibraryError)> {
+        base.with_user_records(&self.solutes, &self.ingredients, ("solutes", "ingredients"))
+            .map(|_| ())
     }
 
     /// Writes the library atomically.

@@ -237,12 +237,7 @@ impl Library {
                 id: rec.id,
             });
         }
-        if !(rec.molar_mass_g_per_mol.is_finite() && rec.molar_mass_g_per_mol > 1.0) {
-            return Err(LibraryError::Invalid {
-                id: rec.id,
-                message: format!("molar mass {} g/mol is not valid", rec.molar_mass_g_per_mol),
-            });
-        }
+        validate::solute(&rec)?;
         if !user {
             self.check_cite(&rec.molar_mass_source, &rec.id)?;
         }
@@ -345,6 +340,7 @@ impl Library {
         user: bool,
     ) -> Result<usize, LibraryError> {
         check_id(&rec.id)?;
+        validate::ingredient(&rec)?;
         if self.ingredient_index.contains_key(&rec.id) {
             return Err(LibraryError::Duplicate {
                 what: "ingredient",
@@ -468,6 +464,34 @@ impl Library {
         self.ingredients[idx].pure_solute = true;
         self.ingredients[idx].user_defined = user;
         Ok(())
+    }
+
+    /// A copy of this library with a user's solutes and ingredients added,
+    /// or the first record that does not fit with the path of the field at
+    /// fault (`{solutes_key}[i].field`, `{ingredients_key}[i].field`).
+    ///
+    /// # Errors
+    /// The path and the error of the first record that does not fit.
+    pub fn with_user_records(
+        &self,
+        solutes: &[SoluteRecord],
+        ingredients: &[IngredientRecord],
+        (solutes_key, ingredients_key): (&str, &str),
+    ) -> Result<Library, (String, LibraryError)> {
+        let mut lib = self.clone();
+        let at = |key: &str, i: usize, e: &LibraryError| match e {
+            LibraryError::Field { field, .. } => format!("{key}[{i}].{field}"),
+            _ => format!("{key}[{i}]"),
+        };
+        for (i, s) in solutes.iter().enumerate() {
+            lib.add_user_solute(s.clone())
+                .map_err(|e| (at(solutes_key, i, &e), e))?;
+        }
+        for (i, r) in ingredients.iter().enumerate() {
+            lib.add_ingredient(r.clone(), true)
+                .map_err(|e| (at(ingredients_key, i, &e), e))?;
+        }
+        Ok(lib)
     }
 
     /// Adds a user solute and its pure ingredient in one step.

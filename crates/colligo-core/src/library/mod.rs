@@ -5,6 +5,7 @@
 mod load;
 pub mod records;
 mod search;
+pub mod validate;
 pub use search::{MatchKind, SearchHit};
 
 use std::collections::HashMap;

@@ -172,7 +172,8 @@ impl NorrishRecord {
     /// a + b/T can run away outside their data).
     pub fn k_at(&self, t_k: f64) -> f64 {
         let (lo, hi) = self.t_range_c;
-        let t = if self.k.is_constant() || lo >= hi {
+        // A NaN end (refused on load anyway) must not reach `clamp`.
+        let t = if self.k.is_constant() || lo.is_nan() || hi.is_nan() || lo >= hi {
             t_k
         } else {
             t_k.clamp(lo + crate::water::T_ZERO_C, hi + crate::water::T_ZERO_C)

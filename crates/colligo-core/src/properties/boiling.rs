@@ -23,6 +23,13 @@ pub fn boiling_point(
     let lib = ev.library();
     let ln_p = p_pa.ln();
     let t_pure = water::if97::t_sat(p_pa.clamp(611.3, 2.2e7));
+    // Solutes raise the boiling point: if pure water already boils above
+    // the hottest temperature searched, so does the solution.
+    if t_pure.is_nan() || t_pure >= T_BOIL_MAX {
+        return Err(ModelError::NoBoilingPoint {
+            max_c: T_BOIL_MAX - water::T_ZERO_C,
+        });
+    }
     let volatiles: Vec<(usize, usize)> = ev
         .components()
         .iter()

@@ -245,7 +245,16 @@ pub fn evaluate(
     let mut ice = None;
     if wanted.ice_fraction {
         let ts = cond.storage_temperature_k;
-        if (T_FREEZE_MIN..=T_ZERO_C + 50.0).contains(&ts) {
+        if ts.is_nan() || ts < T_FREEZE_MIN {
+            warnings.push(Warning::PropertyUnavailable {
+                property: "ice fraction".into(),
+                reason: format!(
+                    "storage at {} °C is below {} °C, the coldest the ice-fraction solve covers (the ice and solution equations are not validated there)",
+                    crate::error::signed(ts - T_ZERO_C),
+                    crate::error::signed(T_FREEZE_MIN - T_ZERO_C)
+                ),
+            });
+        } else {
             let mut warm = WarmStart::default();
             match ice_fraction(
                 &mut ev,
@@ -255,7 +264,8 @@ pub fn evaluate(
                 &mut warm,
             ) {
                 Ok(p) => {
-                    if p.fully_frozen {
+                    // Pure water freezes whole at 0 °C: no eutectic to report.
+                    if p.fully_frozen && dissolved.iter().any(|&d| d > 0.0) {
                         warnings.push(Warning::Eutectic {
                             t_c: p.temperature_c,
                         });
@@ -288,7 +298,7 @@ pub fn evaluate(
         }
     }
     let total = comp.total_kg();
-    Ok(Properties {
+    let props = Properties {
         model: resolved,
         model_reason: resolution.reason,
         temperature_c: t - T_ZERO_C,
@@ -313,5 +323,61 @@ pub fn evaluate(
         insoluble_g: comp.insoluble_kg * 1000.0,
         solutes,
         warnings,
-    })
+    };
+    props.checked()
+}
+
+impl Properties {
+    /// Every number reported is a number: a water activity outside (0, 1]
+    /// or a non-finite core value is an error; an optional property that
+    /// came out non-finite is dropped with a warning saying so.
+    fn checked(mut self) -> Result<Properties, ModelError> {
+        if !(self.water_activity > 0.0 && self.water_activity <= 1.0) {
+            return Err(ModelError::NotUsable {
+                property: "water activity",
+                value: self.water_activity,
+            });
+        }
+        for (property, v) in [
+            ("ERH", self.erh_percent),
+            ("vapour pressure", self.vapor_pressure_pa),
+            ("relative lowering", self.relative_lowering),
+            ("osmolality", self.osmolality_mosmol_per_kg),
+            ("osmotic pressure", self.osmotic_pressure_mpa),
+            ("total mass", self.total_g),
+            ("water", self.water_g),
+            ("water content", self.water_percent),
+            ("soluble solids", self.soluble_solids_percent),
+        ] {
+            if !v.is_finite() {
+                return Err(ModelError::NotUsable { property, value: v });
+            }
+        }
+        let mut dropped = Vec::new();
+        for (property, slot) in [
+            (
+                "co-solvent vapour pressure",
+                &mut self.cosolvent_vapor_pressure_pa,
+            ),
+            ("freezing point", &mut self.freezing_point_c),
+            (
+                "freezing-point depression",
+                &mut self.freezing_point_depression_k,
+            ),
+            ("boiling point", &mut self.boiling_point_c),
+            ("ice fraction", &mut self.ice_fraction_of_water),
+        ] {
+            if let Some(v) = *slot
+                && !v.is_finite()
+            {
+                *slot = None;
+                dropped.push(Warning::PropertyUnavailable {
+                    property: property.into(),
+                    reason: format!("the model returned {v}, not a number"),
+                });
+            }
+        }
+        self.warnings.extend(dropped);
+        Ok(self)
+    }
 }

@@ -30,7 +30,11 @@ pub fn run(a: &EvalArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
     let comp = j.formula.composition(&j.lib)?;
     let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
     if a.json {
-        writeln!(out, "{}", serde_json::to_string_pretty(&EvalJson::new(&p))?)?;
+        writeln!(
+            out,
+            "{}",
+            crate::cli::output::json_text(&EvalJson::new(&p))?
+        )?;
     } else {
         write!(out, "{}", properties_table(&p, &j.title))?;
     }

@@ -58,6 +58,9 @@ pub fn parse_step(text: &str) -> Result<f64, String> {
     }
 }
 
+/// Most points a curve may have.
+pub const MAX_POINTS: usize = 100_000;
+
 /// Runs `freeze`.
 ///
 /// # Errors
@@ -69,10 +72,16 @@ pub fn run(a: &FreezeArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
     if !(-60.0..=0.0).contains(&from) || !(-60.0..=0.0).contains(&to) {
         bail!("--from and --to must lie between -60 and 0 °C");
     }
-    let n = ((from - to).abs() / step).floor() as usize + 1;
-    if n > 100_000 {
-        bail!("{n} points is too many; use a larger --step");
+    // Counted in f64: a tiny step gives a count beyond usize, which must
+    // not wrap to a small number.
+    let count = ((from - to).abs() / step).floor() + 1.0;
+    if count.is_nan() || count > MAX_POINTS as f64 {
+        bail!(
+            "{} points is too many (at most {MAX_POINTS}); use a larger --step",
+            colligo_core::error::short(count)
+        );
     }
+    let n = count as usize;
     let dir = if to < from { -1.0 } else { 1.0 };
     let temps: Vec<f64> = (0..n)
         .map(|i| from + dir * step * i as f64 + T_ZERO_C)
@@ -83,7 +92,7 @@ pub fn run(a: &FreezeArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
         writeln!(
             out,
             "{}",
-            serde_json::to_string_pretty(&FreezingJson::new(&curve))?
+            crate::cli::output::json_text(&FreezingJson::new(&curve))?
         )?;
     } else {
         write!(out, "{}\n{}", j.title, freezing_table(&curve))?;

@@ -7,13 +7,15 @@ use std::fmt::Write as _;
 use colligo_core::Properties;
 use colligo_core::keys::ScalarKey;
 use colligo_core::properties::{FreezingCurve, IcePoint};
+use colligo_core::quantity::fixed;
 use csv::QuoteStyle;
 use serde::ser::{Serialize, SerializeMap, Serializer};
 
 use crate::{CAUTIONS, csv_out};
 
 /// The scalar properties of `eval --json`, keyed and ordered by
-/// [`ScalarKey::ALL`]; a missing or non-finite value is `null`.
+/// [`ScalarKey::ALL`]; a missing or non-finite value is left out (by
+/// [`json_text`]), and the warnings say why.
 #[derive(Debug, Clone, Copy)]
 pub struct Scalars<'a>(pub &'a Properties);
 
@@ -42,6 +44,31 @@ pub struct SoluteJson<'a> {
     pub molality_mol_per_kg: f64,
     /// Share of ln a_w.
     pub ln_aw_share: f64,
+}
+
+/// The pretty JSON text of a document as every subcommand prints it: a
+/// member whose value is missing (`null`) is left out, and a negative zero
+/// is written as `0.0`, so no output holds `null`, NaN, infinity or `-0`.
+///
+/// # Errors
+/// Serialisation errors.
+pub fn json_text<T: Serialize>(doc: &T) -> serde_json::Result<String> {
+    let mut v = serde_json::to_value(doc)?;
+    tidy(&mut v);
+    serde_json::to_string_pretty(&v)
+}
+
+fn tidy(v: &mut serde_json::Value) {
+    use serde_json::Value;
+    match v {
+        Value::Object(m) => {
+            m.retain(|_, x| !x.is_null());
+            m.values_mut().for_each(tidy);
+        }
+        Value::Array(a) => a.iter_mut().for_each(tidy),
+        Value::Number(n) if n.is_f64() && n.as_f64() == Some(0.0) => *v = Value::from(0.0),
+        _ => {}
+    }
 }
 
 /// Every property of a formula, without the cautions (a sweep point
@@ -75,7 +102,7 @@ pub struct PropertiesJson<'a> {
     pub warnings: Vec<String>,
 }
 
-/// A non-finite value becomes `null`, as for every optional number.
+/// A non-finite value becomes `None`, left out as every missing number.
 fn finite(v: Option<f64>) -> Option<f64> {
     v.filter(|x| x.is_finite())
 }
@@ -233,7 +260,9 @@ impl FreezingJson {
 
 fn fmt_opt(v: Option<f64>, digits: usize, unit: &str) -> String {
     match v {
-        Some(x) if x.is_finite() => format!("{x:.digits$} {unit}").trim_end().to_string(),
+        Some(x) if x.is_finite() => format!("{} {unit}", fixed(x, digits))
+            .trim_end()
+            .to_string(),
         _ => "—".into(),
     }
 }
@@ -243,50 +272,56 @@ pub fn properties_table(p: &Properties, title: &str) -> String {
     let mut out = String::new();
     out.push_str(&format!("{title}\n"));
     out.push_str(&format!(
-        "  at {:.2} °C, {:.3} kPa; model {} ({})\n\n",
-        p.temperature_c,
-        p.pressure_pa / 1000.0,
+        "  at {} °C, {} kPa; model {} ({})\n\n",
+        fixed(p.temperature_c, 2),
+        fixed(p.pressure_pa / 1000.0, 3),
         p.model.as_str(),
         p.model_reason
     ));
     let rows: Vec<(&str, String)> = vec![
-        ("water activity a_w", format!("{:.4}", p.water_activity)),
-        ("ERH", format!("{:.2} %", p.erh_percent)),
+        ("water activity a_w", fixed(p.water_activity, 4)),
+        ("ERH", format!("{} %", fixed(p.erh_percent, 2))),
         (
             "vapour pressure",
             format!(
-                "{:.1} Pa (pure water {:.1} Pa)",
-                p.vapor_pressure_pa, p.pure_water_vapor_pressure_pa
+                "{} Pa (pure water {} Pa)",
+                fixed(p.vapor_pressure_pa, 1),
+                fixed(p.pure_water_vapor_pressure_pa, 1)
             ),
         ),
-        (
-            "relative lowering 1 − a_w",
-            format!("{:.4}", p.relative_lowering),
-        ),
+        ("relative lowering 1 − a_w", fixed(p.relative_lowering, 4)),
         ("freezing point", fmt_opt(p.freezing_point_c, 2, "°C")),
         (
             "ice fraction of water",
             match p.ice_fraction_of_water {
-                Some(f) => format!("{:.1} % at {:.1} °C", 100.0 * f, p.storage_temperature_c),
+                Some(f) => format!(
+                    "{} % at {} °C",
+                    fixed(100.0 * f, 1),
+                    fixed(p.storage_temperature_c, 1)
+                ),
                 None => "—".into(),
             },
         ),
         ("boiling point", fmt_opt(p.boiling_point_c, 2, "°C")),
         (
             "osmolality",
-            format!("{:.0} mOsmol/kg", p.osmolality_mosmol_per_kg),
+            format!("{} mOsmol/kg", fixed(p.osmolality_mosmol_per_kg, 0)),
         ),
         (
             "osmotic pressure",
-            format!("{:.3} MPa", p.osmotic_pressure_mpa),
+            format!("{} MPa", fixed(p.osmotic_pressure_mpa, 3)),
         ),
         (
             "water",
-            format!("{:.2} % of {:.2} g", p.water_percent, p.total_g),
+            format!(
+                "{} % of {} g",
+                fixed(p.water_percent, 2),
+                fixed(p.total_g, 2)
+            ),
         ),
         (
             "soluble solids",
-            format!("{:.2} % of the solution", p.soluble_solids_percent),
+            format!("{} % of the solution", fixed(p.soluble_solids_percent, 2)),
         ),
     ];
     for (k, v) in rows {
@@ -294,15 +329,19 @@ pub fn properties_table(p: &Properties, title: &str) -> String {
     }
     if let Some(pv) = p.cosolvent_vapor_pressure_pa {
         out.push_str(&format!(
-            "  {:<28}{pv:.1} Pa\n",
-            "co-solvent vapour pressure"
+            "  {:<28}{} Pa\n",
+            "co-solvent vapour pressure",
+            fixed(pv, 1)
         ));
     }
     out.push_str("\n  solute                      dissolved g   undissolved g   molality mol/kg\n");
     for s in &p.solutes {
         out.push_str(&format!(
-            "  {:<26}{:>12.3}{:>16.3}{:>18.4}\n",
-            s.id, s.dissolved_g, s.undissolved_g, s.molality_mol_per_kg
+            "  {:<26}{:>12}{:>16}{:>18}\n",
+            s.id,
+            fixed(s.dissolved_g, 3),
+            fixed(s.undissolved_g, 3),
+            fixed(s.molality_mol_per_kg, 4)
         ));
     }
     if !p.warnings.is_empty() {
@@ -324,11 +363,11 @@ pub fn freezing_table(c: &FreezingCurve) -> String {
     );
     for p in &c.points {
         out.push_str(&format!(
-            "  {:>6.1}   {:>9.4}   {:>9.4}   {:.4}{}\n",
-            p.temperature_c,
-            p.ice_fraction_of_water,
-            p.ice_fraction_of_total,
-            p.water_activity,
+            "  {:>6}   {:>9}   {:>9}   {}{}\n",
+            fixed(p.temperature_c, 1),
+            fixed(p.ice_fraction_of_water, 4),
+            fixed(p.ice_fraction_of_total, 4),
+            fixed(p.water_activity, 4),
             if p.fully_frozen {
                 "   (below eutectic)"
             } else {
@@ -397,6 +436,8 @@ pub fn push_num(out: &mut String, v: f64) {
     if !v.is_finite() {
         return;
     }
+    // -0 + 0 is +0: never print a negative zero.
+    let v = v + 0.0;
     let a = v.abs();
     if a != 0.0 && !(1e-4..1e9).contains(&a) {
         let _ = write!(out, "{v:.9e}");

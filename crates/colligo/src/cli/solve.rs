@@ -51,7 +51,7 @@ pub fn run(a: &SolveArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
             target: target.to_string(),
             properties: EvalJson::new(&r.properties),
         };
-        writeln!(out, "{}", serde_json::to_string_pretty(&doc)?)?;
+        writeln!(out, "{}", crate::cli::output::json_text(&doc)?)?;
     } else {
         writeln!(
             out,

@@ -73,7 +73,7 @@ pub fn run(a: &SweepArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
             points,
             cautions: CAUTIONS,
         };
-        writeln!(out, "{}", serde_json::to_string_pretty(&doc)?)?;
+        writeln!(out, "{}", crate::cli::output::json_text(&doc)?)?;
     } else {
         out.write_all(sweep_table(id, &amounts, &rows, a.csv).as_bytes())?;
     }

@@ -306,7 +306,9 @@ impl Ranking {
                         }
                         ui.end_row();
                         let fmt = |v: f64| {
-                            if v.is_finite() {
+                            if v == 0.0 {
+                                "0".into()
+                            } else if v.is_finite() {
                                 format!("{v:+.2e}")
                             } else {
                                 "—".into()
