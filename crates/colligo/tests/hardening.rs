@@ -337,18 +337,7 @@ fn pure_water_prints_no_negative_zero_and_no_null() {
     for args in [
         vec!["eval", "--mix", "water=100g", "--json"],
         vec!["freeze", "--mix", "water=100g", "--json"],
-        vec![
-            "sweep",
-            "--mix",
-            "water=100g",
-            "--ingredient",
-            "sucrose",
-            "--to",
-            "10g",
-            "--steps",
-            "3",
-            "--json",
-        ],
+        [&SWEEP_PURE_WATER[..], &["--json"]].concat(),
     ] {
         let out = colligo(&args);
         let text = stdout(&out);
@@ -358,19 +347,22 @@ fn pure_water_prints_no_negative_zero_and_no_null() {
         }
         assert!(!negative_zero(&json(&out)), "{args:?}: -0 in {text}");
     }
-    let out = colligo(&[
-        "sweep",
-        "--mix",
-        "water=100g",
-        "--ingredient",
-        "sucrose",
-        "--to",
-        "10g",
-        "--steps",
-        "3",
-    ]);
+    let out = colligo(&SWEEP_PURE_WATER);
     assert!(!stdout(&out).contains("\t-0\t"), "{}", stdout(&out));
 }
+
+/// Sucrose swept from nothing into pure water.
+const SWEEP_PURE_WATER: [&str; 9] = [
+    "sweep",
+    "--mix",
+    "water=100g",
+    "--ingredient",
+    "sucrose",
+    "--to",
+    "10g",
+    "--steps",
+    "3",
+];
 
 fn negative_zero(v: &serde_json::Value) -> bool {
     use serde_json::Value;
