@@ -334,6 +334,11 @@ fn pure_water_prints_no_negative_zero_and_no_null() {
         table.contains("freezing point              0.00 °C"),
         "{table}"
     );
+    // Pure water freezes whole: it has no eutectic to warn of.
+    let freeze = stdout(&colligo(&["freeze", "--mix", "water=100g"]));
+    for text in [&table, &freeze] {
+        assert!(!text.contains("eutectic"), "{text}");
+    }
     for args in [
         vec!["eval", "--mix", "water=100g", "--json"],
         vec!["freeze", "--mix", "water=100g", "--json"],

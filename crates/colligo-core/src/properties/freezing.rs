@@ -128,8 +128,12 @@ pub struct IcePoint {
     pub hydrate_fraction_of_water: f64,
     /// a_w of the unfrozen solution (= ice equilibrium when ice is present).
     pub water_activity: f64,
-    /// True below the eutectic (no liquid left).
+    /// True when no liquid is left: pure water below 0 °C, or a solution
+    /// below its eutectic.
     pub fully_frozen: bool,
+    /// True when a solution is below its eutectic (false for pure water,
+    /// which freezes whole at its freezing point and has no eutectic).
+    pub eutectic: bool,
 }
 
 /// Ice fraction at `t_k` for the composition in `ev` (amounts dissolved
@@ -163,6 +167,7 @@ pub fn ice_fraction(
             hydrate_fraction_of_water: 0.0,
             water_activity: (f_all_liquid + ln_ice).exp(),
             fully_frozen: false,
+            eutectic: false,
         });
     }
     // When every dissolved solute can crystallise, the freeze-concentrate
@@ -184,6 +189,7 @@ pub fn ice_fraction(
             hydrate_fraction_of_water: bound / w_total,
             water_activity: ln_ice.exp(),
             fully_frozen: true,
+            eutectic: !pure_water,
         });
     }
     // ZSR can be turned around: the liquid that gives ln a_w,ice directly.
@@ -279,6 +285,7 @@ pub fn ice_fraction(
         hydrate_fraction_of_water: bound / w_total,
         water_activity: ln_ice.exp(),
         fully_frozen: false,
+        eutectic: false,
     })
 }
 
@@ -388,7 +395,7 @@ pub fn freezing_curve(
     let mut eutectic_noted = false;
     for &t in temps_k {
         let p = ice_fraction(&mut ev, &before, total, t.min(T_ZERO_C), &mut warm)?;
-        if p.fully_frozen && !eutectic_noted {
+        if p.eutectic && !eutectic_noted {
             warnings.push(Warning::Eutectic {
                 t_c: p.temperature_c,
             });

@@ -264,8 +264,7 @@ pub fn evaluate(
                 &mut warm,
             ) {
                 Ok(p) => {
-                    // Pure water freezes whole at 0 °C: no eutectic to report.
-                    if p.fully_frozen && dissolved.iter().any(|&d| d > 0.0) {
+                    if p.eutectic {
                         warnings.push(Warning::Eutectic {
                             t_c: p.temperature_c,
                         });
@@ -353,7 +352,6 @@ impl Properties {
                 return Err(ModelError::NotUsable { property, value: v });
             }
         }
-        let mut dropped = Vec::new();
         for (property, slot) in [
             (
                 "co-solvent vapour pressure",
@@ -371,13 +369,12 @@ impl Properties {
                 && !v.is_finite()
             {
                 *slot = None;
-                dropped.push(Warning::PropertyUnavailable {
+                self.warnings.push(Warning::PropertyUnavailable {
                     property: property.into(),
                     reason: format!("the model returned {v}, not a number"),
                 });
             }
         }
-        self.warnings.extend(dropped);
         Ok(self)
     }
 }

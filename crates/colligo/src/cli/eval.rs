@@ -8,7 +8,7 @@ use colligo_core::Library;
 use colligo_core::properties::{self, Wanted};
 
 use super::options::JobArgs;
-use super::output::{EvalJson, properties_table};
+use super::output::{EvalJson, json_text, properties_table};
 
 /// Options of `eval`.
 #[derive(Debug, Clone, Args)]
@@ -30,11 +30,7 @@ pub fn run(a: &EvalArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
     let comp = j.formula.composition(&j.lib)?;
     let p = properties::evaluate(&j.lib, &comp, j.model, &j.cond, Wanted::ALL)?;
     if a.json {
-        writeln!(
-            out,
-            "{}",
-            crate::cli::output::json_text(&EvalJson::new(&p))?
-        )?;
+        writeln!(out, "{}", json_text(&EvalJson::new(&p))?)?;
     } else {
         write!(out, "{}", properties_table(&p, &j.title))?;
     }

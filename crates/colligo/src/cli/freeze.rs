@@ -10,7 +10,7 @@ use colligo_core::quantity::parse_temperature_c;
 use colligo_core::water::T_ZERO_C;
 
 use super::options::JobArgs;
-use super::output::{FreezingJson, freezing_table};
+use super::output::{FreezingJson, freezing_table, json_text};
 
 /// Options of `freeze`.
 #[derive(Debug, Clone, Args)]
@@ -89,11 +89,7 @@ pub fn run(a: &FreezeArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
     let comp = j.formula.composition(&j.lib)?;
     let curve = properties::freezing_curve(&j.lib, &comp, j.model, &j.cond, &temps)?;
     if a.json {
-        writeln!(
-            out,
-            "{}",
-            crate::cli::output::json_text(&FreezingJson::new(&curve))?
-        )?;
+        writeln!(out, "{}", json_text(&FreezingJson::new(&curve))?)?;
     } else {
         write!(out, "{}\n{}", j.title, freezing_table(&curve))?;
     }

@@ -368,7 +368,7 @@ pub fn freezing_table(c: &FreezingCurve) -> String {
             fixed(p.ice_fraction_of_water, 4),
             fixed(p.ice_fraction_of_total, 4),
             fixed(p.water_activity, 4),
-            if p.fully_frozen {
+            if p.eutectic {
                 "   (below eutectic)"
             } else {
                 ""

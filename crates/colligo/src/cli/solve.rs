@@ -8,7 +8,7 @@ use colligo_core::Library;
 use colligo_core::goal::{Target, goal_seek};
 
 use super::options::JobArgs;
-use super::output::{EvalJson, SolveJson, properties_table};
+use super::output::{EvalJson, SolveJson, json_text, properties_table};
 
 /// Options of `solve`.
 #[derive(Debug, Clone, Args)]
@@ -51,7 +51,7 @@ pub fn run(a: &SolveArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
             target: target.to_string(),
             properties: EvalJson::new(&r.properties),
         };
-        writeln!(out, "{}", crate::cli::output::json_text(&doc)?)?;
+        writeln!(out, "{}", json_text(&doc)?)?;
     } else {
         writeln!(
             out,

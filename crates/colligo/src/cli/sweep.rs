@@ -8,7 +8,7 @@ use colligo_core::Library;
 use colligo_core::sweep;
 
 use super::options::{JobArgs, parse_mass_kg};
-use super::output::{PropertiesJson, SweepJson, SweepPointJson, sweep_table};
+use super::output::{PropertiesJson, SweepJson, SweepPointJson, json_text, sweep_table};
 use crate::CAUTIONS;
 
 /// Options of `sweep`.
@@ -73,7 +73,7 @@ pub fn run(a: &SweepArgs, base: &Library, out: &mut dyn Write) -> Result<()> {
             points,
             cautions: CAUTIONS,
         };
-        writeln!(out, "{}", crate::cli::output::json_text(&doc)?)?;
+        writeln!(out, "{}", json_text(&doc)?)?;
     } else {
         out.write_all(sweep_table(id, &amounts, &rows, a.csv).as_bytes())?;
     }
