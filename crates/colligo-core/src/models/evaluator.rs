@@ -32,7 +32,6 @@ pub struct Evaluator<'l> {
     // Caches at temperature `t`.
     pub(super) t: f64,
     pub(super) signed_sqrt_k: Vec<f64>,
-    pub(super) norrish_x_max: Vec<f64>,
     pub(super) binaries: Vec<Binary>,
     pub(super) wilson: Vec<Option<WilsonBinary>>,
     pub(super) solubility: Vec<f64>,
@@ -41,8 +40,11 @@ pub struct Evaluator<'l> {
     pub(super) ion_m: Vec<f64>,
     pub(super) zsr_m: Vec<f64>,
     pub(super) scratch: Vec<(usize, f64, f64)>,
+    pub(super) masked: Vec<f64>,
     /// Last converged ZSR solution y; `zsr_m` holds its m_i°.
     pub(super) zsr_warm: Option<f64>,
+    /// Last water split ln(w₁/w₂) of the grouped model.
+    pub(super) group_warm: Option<f64>,
     last_ln_aw: f64,
     /// Number of model evaluations so far.
     evaluations: usize,
@@ -125,7 +127,6 @@ impl<'l> Evaluator<'l> {
             comps,
             t: f64::NAN,
             signed_sqrt_k: vec![0.0; n],
-            norrish_x_max: vec![f64::INFINITY; n],
             binaries: vec![Binary::Ideal { nu: 1.0 }; n],
             wilson: vec![None; n],
             solubility: vec![f64::INFINITY; n],
@@ -133,7 +134,9 @@ impl<'l> Evaluator<'l> {
             ion_m: vec![0.0; n_ions],
             zsr_m: vec![f64::NAN; n],
             scratch: Vec::with_capacity(n),
+            masked: Vec::with_capacity(n),
             zsr_warm: None,
+            group_warm: None,
             last_ln_aw: f64::NAN,
             evaluations: 0,
         }
@@ -192,12 +195,9 @@ impl<'l> Evaluator<'l> {
                 }
                 Binary::Ideal { .. } => {}
             }
-            (self.signed_sqrt_k[i], self.norrish_x_max[i]) = match (&self.binaries[i], c.role) {
-                (Binary::Norrish { k, x_max }, Role::NonElectrolyte) => (
-                    k.signum() * k.abs().sqrt(),
-                    if *k < 0.0 { *x_max } else { f64::INFINITY },
-                ),
-                _ => (0.0, f64::INFINITY),
+            self.signed_sqrt_k[i] = match (&self.binaries[i], c.role) {
+                (Binary::Norrish { k, .. }, Role::NonElectrolyte) => k.signum() * k.abs().sqrt(),
+                _ => 0.0,
             };
             self.wilson[i] = match &self.binaries[i] {
                 Binary::Wilson(w) => Some(*w),
@@ -275,6 +275,7 @@ impl<'l> Evaluator<'l> {
             Model::Ross => self.ross(water_kg, dissolved),
             Model::Zsr => self.zsr(water_kg, dissolved),
             Model::Pitzer => self.pitzer(water_kg, dissolved),
+            Model::Grouped => self.grouped(water_kg, dissolved),
         };
         self.last_ln_aw = r;
         r

@@ -7,7 +7,8 @@
 //! | `ross` | a_w = Π a_w,i°(m_i) | Ross (1975) | `ross.rs` |
 //! | `zsr` | Σ m_i / m_i°(a_w) = 1 | Stokes & Robinson (1966) | `zsr.rs` |
 //! | `pitzer` | ln a_w = −φ M_w Σ m (mixed electrolytes, θ, ψ, Eθ) | Pitzer (1991) | `pitzer/` |
-//! | `auto` | Norrish for non-electrolytes, Pitzer for electrolytes, ZSR for both | — | [`ModelChoice::resolve`] |
+//! | `grouped` | Norrish group and Pitzer group joined by ZSR | Clegg, Seinfeld & Brimblecombe (2001) | `grouped.rs` |
+//! | `auto` | Norrish for non-electrolytes, Pitzer for electrolytes, `grouped` for both | — | [`ModelChoice::resolve`] |
 //!
 //! What the user chooses ([`ModelChoice`], which may be `auto`) is kept
 //! apart from what is computed ([`Model`], always concrete): the
@@ -24,6 +25,7 @@
 
 pub mod binary;
 mod evaluator;
+mod grouped;
 mod ideal;
 mod norrish;
 pub mod pitzer;
@@ -57,16 +59,19 @@ pub enum Model {
     Zsr,
     /// Pitzer ion interaction.
     Pitzer,
+    /// Norrish and Pitzer groups joined by ZSR.
+    Grouped,
 }
 
 impl Model {
     /// Every model.
-    pub const ALL: [Model; 5] = [
+    pub const ALL: [Model; 6] = [
         Model::Ideal,
         Model::Norrish,
         Model::Ross,
         Model::Zsr,
         Model::Pitzer,
+        Model::Grouped,
     ];
 
     /// The id used on the command line and in files.
@@ -87,6 +92,7 @@ impl Model {
             Model::Ross => ross::treatment(role),
             Model::Zsr => zsr::treatment(role),
             Model::Pitzer => pitzer::treatment(role),
+            Model::Grouped => grouped::treatment(role),
         }
     }
 }
@@ -115,6 +121,8 @@ pub enum ModelChoice {
     Zsr,
     /// Pitzer ion interaction.
     Pitzer,
+    /// Norrish and Pitzer groups joined by ZSR.
+    Grouped,
 }
 
 impl From<Model> for ModelChoice {
@@ -125,6 +133,7 @@ impl From<Model> for ModelChoice {
             Model::Ross => ModelChoice::Ross,
             Model::Zsr => ModelChoice::Zsr,
             Model::Pitzer => ModelChoice::Pitzer,
+            Model::Grouped => ModelChoice::Grouped,
         }
     }
 }
@@ -140,13 +149,14 @@ pub struct Resolution {
 
 impl ModelChoice {
     /// Every choice, `auto` first.
-    pub const ALL: [ModelChoice; 6] = [
+    pub const ALL: [ModelChoice; 7] = [
         ModelChoice::Auto,
         ModelChoice::Ideal,
         ModelChoice::Norrish,
         ModelChoice::Ross,
         ModelChoice::Zsr,
         ModelChoice::Pitzer,
+        ModelChoice::Grouped,
     ];
 
     /// The id used on the command line and in files.
@@ -158,6 +168,7 @@ impl ModelChoice {
             ModelChoice::Ross => "ross",
             ModelChoice::Zsr => "zsr",
             ModelChoice::Pitzer => "pitzer",
+            ModelChoice::Grouped => "grouped",
         }
     }
 
@@ -170,6 +181,9 @@ impl ModelChoice {
             ModelChoice::Ross => "Ross (1975) product rule",
             ModelChoice::Zsr => "Zdanovskii-Stokes-Robinson (Stokes & Robinson 1966)",
             ModelChoice::Pitzer => "Pitzer ion interaction (Pitzer 1991)",
+            ModelChoice::Grouped => {
+                "Norrish and Pitzer groups joined by ZSR (Clegg, Seinfeld & Brimblecombe 2001)"
+            }
         }
     }
 
@@ -182,6 +196,7 @@ impl ModelChoice {
             ModelChoice::Ross => Some(Model::Ross),
             ModelChoice::Zsr => Some(Model::Zsr),
             ModelChoice::Pitzer => Some(Model::Pitzer),
+            ModelChoice::Grouped => Some(Model::Grouped),
         }
     }
 
@@ -204,20 +219,24 @@ impl ModelChoice {
             .filter(|s| lib.solutes[s.solute].volatile().is_some())
             .count();
         let n = present.len();
+        // Each arm is the grouped rule with one group empty, so the choice
+        // is continuous as a solute of a new kind goes from zero upward.
         let (model, reason) = match (n, n_el, n_vol) {
             (0, _, _) => (Model::Ideal, "pure water"),
             (1, _, 1) => (
                 Model::Ross,
                 "one volatile co-solvent: its Wilson binary with water",
             ),
-            (_, 0, 0) => (
+            (_, 0, _) => (
                 Model::Norrish,
                 "non-electrolytes only: multi-solute Norrish",
             ),
-            (_, e, 0) if e == n => (Model::Pitzer, "electrolytes only: Pitzer with mixing terms"),
+            (_, e, v) if e + v == n => {
+                (Model::Pitzer, "electrolytes only: Pitzer with mixing terms")
+            }
             _ => (
-                Model::Zsr,
-                "electrolytes and non-electrolytes (or a volatile co-solvent) together: ZSR on each solute's best binary",
+                Model::Grouped,
+                "electrolytes and non-electrolytes together: Norrish for the non-electrolytes and Pitzer for the electrolytes, joined by ZSR",
             ),
         };
         Resolution {

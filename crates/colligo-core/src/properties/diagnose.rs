@@ -62,6 +62,11 @@ pub(super) fn diagnose(lib: &Library, sol: &Solution) -> Vec<Warning> {
                     term >= 0.05 || sol.solutes.len() == 1,
                 )
             }
+            Model::Grouped => (
+                c.zsr_molality.unwrap_or(m).max(m),
+                "its group's share of the water (grouped ZSR)",
+                true,
+            ),
             Model::Ross => {
                 let share = if ln_aw_total != 0.0 {
                     c.binary_ln_aw / ln_aw_total

@@ -84,6 +84,8 @@ pub enum ModelOption {
     Zsr,
     /// Pitzer ion interaction
     Pitzer,
+    /// Norrish and Pitzer groups joined by ZSR
+    Grouped,
 }
 
 impl From<ModelOption> for ModelChoice {
@@ -95,6 +97,7 @@ impl From<ModelOption> for ModelChoice {
             ModelOption::Ross => ModelChoice::Ross,
             ModelOption::Zsr => ModelChoice::Zsr,
             ModelOption::Pitzer => ModelChoice::Pitzer,
+            ModelOption::Grouped => ModelChoice::Grouped,
         }
     }
 }

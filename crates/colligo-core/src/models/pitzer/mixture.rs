@@ -2,7 +2,7 @@
 //! θ, ψ and the unsymmetrical Eθ terms.
 
 use super::binary::PairAtT;
-use super::terms::{aphi, dh, etheta_phi, gcd};
+use super::terms::{aphi, dh, etheta_phi};
 use crate::library::{IonIdx, Library};
 
 /// A mixture of ions for the full Pitzer model.
@@ -17,8 +17,6 @@ pub struct PitzerMixture {
     likes: Vec<(usize, usize, Option<usize>, bool)>,
     /// `(i, j, k, ψ record)`.
     psis: Vec<(usize, usize, usize, usize)>,
-    /// Ionic strength of each pair's salt at its highest fitted molality.
-    pair_i_max: Vec<f64>,
     // Temperature-dependent values.
     t: f64,
     aphi: f64,
@@ -66,18 +64,7 @@ impl PitzerMixture {
                 }
             }
         }
-        let pair_i_max: Vec<f64> = pairs
-            .iter()
-            .map(|&(c, a, p)| {
-                // A salt of ν_c cations and ν_a anions at molality m has
-                // I = ½ m (ν_c z_c² + ν_a z_a²), with ν_c z_c = −ν_a z_a.
-                let (zc, za) = (z[c], -z[a]);
-                let (nc, na) = (za / gcd(zc, za), zc / gcd(zc, za));
-                0.5 * lib.pitzer.pairs[p].max_molality * (nc * zc * zc + na * za * za)
-            })
-            .collect();
         PitzerMixture {
-            pair_i_max,
             ions,
             z,
             pair_at: vec![PairAtT::default(); pairs.len()],
@@ -134,10 +121,9 @@ impl PitzerMixture {
             .map(|i| self.pair_at[i])
     }
 
-    /// `(φ, Σm)` for ion molalities `m` (local order). Beyond the ionic
-    /// strength of the data behind the parameters, φ is held at its value
-    /// on the edge of the data (the mixture scaled down to that ionic
-    /// strength), so that a_w keeps falling as the solution concentrates.
+    /// `(φ, Σm)` for ion molalities `m` (local order), as the equations
+    /// give it; the evaluator decides what to do beyond the data
+    /// ([`super::super::Evaluator`]'s Pitzer arm).
     pub fn phi(&self, m: &[f64]) -> (f64, f64) {
         let mut i = 0.0;
         let mut zsum = 0.0;
@@ -150,21 +136,7 @@ impl PitzerMixture {
         if sum <= 0.0 {
             return (1.0, 0.0);
         }
-        i *= 0.5;
-        // The data limit of the mixture: each pair's limit weighted by the
-        // product of its ion molalities (exact for a single salt).
-        let (mut wsum, mut wi) = (0.0, 0.0);
-        for (&(c, a, _), &imax) in self.pairs.iter().zip(&self.pair_i_max) {
-            let w = m[c] * m[a];
-            wsum += w;
-            wi += w * imax;
-        }
-        let i_max = if wsum > 0.0 { wi / wsum } else { f64::INFINITY };
-        if i > i_max {
-            let k = i_max / i;
-            return (self.phi_scaled(m, k, i * k, zsum * k, sum * k), sum);
-        }
-        (self.phi_scaled(m, 1.0, i, zsum, sum), sum)
+        (self.phi_scaled(m, 1.0, 0.5 * i, zsum, sum), sum)
     }
 
     fn phi_scaled(&self, m: &[f64], k: f64, i: f64, zsum: f64, sum: f64) -> f64 {

@@ -32,25 +32,80 @@ pub use binary::{PairAtT, PitzerBinary};
 pub use mixture::PitzerMixture;
 pub use terms::{B, aphi, aphi_crp94, aphi_m88, harvie_j};
 
+use super::binary::Binary;
 use super::{Evaluator, Role, Treatment};
 use crate::water::M_W;
 
 impl Evaluator<'_> {
     pub(super) fn pitzer(&mut self, w: f64, d: &[f64]) -> f64 {
+        self.pitzer_part(w, d, true) + self.volatile_ln_aw(w, d)
+    }
+
+    /// The Pitzer part: the ions of the electrolytes (and, when
+    /// `with_neutrals`, the non-electrolytes counted ideally) in `w` kg of
+    /// water, without any volatile co-solvent.
+    ///
+    /// Within the data (Σ_j m_j / m_max,j ≤ 1 over the salts, so every salt
+    /// is within its own fit) the equations are used as they stand. Beyond
+    /// it they are not: a mixture held at its edge along its own ray would
+    /// let a salt with a short range (K₂HPO₄ to 1 mol/kg) pull a salt at
+    /// its edge (MgCl₂ near saturation) back to a lower φ, and a_w would
+    /// rise as salt is added. Beyond the data each salt keeps its own
+    /// binary held at its edge, mixed by ZSR (monotonic in every amount),
+    /// scaled by the ratio of the full Pitzer mixture to ZSR at the edge of
+    /// the data on the same ray, so the two meet there.
+    pub(super) fn pitzer_part(&mut self, w: f64, d: &[f64], with_neutrals: bool) -> f64 {
+        let mut f = 0.0;
+        let mut ideal = 0.0;
+        for (i, c) in self.comps.iter().enumerate() {
+            match c.role {
+                Role::PitzerSalt => {
+                    if let Binary::Pitzer(p) = &self.binaries[i] {
+                        f += d[i] / w / p.m_max;
+                    }
+                }
+                // Solutes without Pitzer parameters count ideally (Raoult,
+                // in the mole-fraction form their own binary uses).
+                Role::IdealSalt => ideal += c.nu * d[i] / w,
+                Role::NonElectrolyte if with_neutrals => ideal += c.nu * d[i] / w,
+                Role::NonElectrolyte | Role::Volatile => {}
+            }
+        }
+        let salts = if f <= 1.0 {
+            self.pitzer_equations(w, d)
+        } else {
+            let edge = self.pitzer_equations(w * f, d);
+            let z_edge = self.salt_zsr(w * f, d);
+            let z = self.salt_zsr(w, d);
+            if z_edge < 0.0 { z * edge / z_edge } else { z }
+        };
+        salts - (M_W * ideal).ln_1p()
+    }
+
+    /// −φ M_w Σm of the Pitzer salts' ions in `w` kg of water.
+    fn pitzer_equations(&mut self, w: f64, d: &[f64]) -> f64 {
         self.ion_m.iter_mut().for_each(|m| *m = 0.0);
         for &(ci, local, count) in &self.salt_ions {
             self.ion_m[local] += count * d[ci] / w;
         }
         let (phi, sum) = self.pitzer.phi(&self.ion_m);
-        // Solutes without Pitzer parameters count ideally (Raoult, in the
-        // mole-fraction form their own binary uses).
-        let mut ideal = 0.0;
-        for (i, c) in self.comps.iter().enumerate() {
-            if matches!(c.role, Role::NonElectrolyte | Role::IdealSalt) {
-                ideal += c.nu * d[i] / w;
-            }
-        }
-        -M_W * phi * sum - (M_W * ideal).ln_1p() + self.volatile_ln_aw(w, d)
+        -M_W * phi * sum
+    }
+
+    /// ZSR over the Pitzer salts alone (their binaries held at their
+    /// edges) in `w` kg of water.
+    fn salt_zsr(&mut self, w: f64, d: &[f64]) -> f64 {
+        let mut only = std::mem::take(&mut self.masked);
+        only.clear();
+        only.extend(
+            self.comps
+                .iter()
+                .zip(d)
+                .map(|(c, &n)| if c.role == Role::PitzerSalt { n } else { 0.0 }),
+        );
+        let y = self.zsr(w, &only);
+        self.masked = only;
+        y
     }
 }
 

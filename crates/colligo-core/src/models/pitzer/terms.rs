@@ -161,14 +161,6 @@ pub(super) fn dh(aphi: f64, i: f64, s: f64) -> f64 {
     -aphi * i * s / (1.0 + B * s)
 }
 
-pub(super) fn gcd(a: f64, b: f64) -> f64 {
-    let (mut a, mut b) = (a.round().abs() as u32, b.round().abs() as u32);
-    while b != 0 {
-        (a, b) = (b, a % b);
-    }
-    f64::from(a.max(1))
-}
-
 /// Eθ + I Eθ′ for ions of charges `zi`, `zj` (Pitzer 1975; Pitzer 1991
 /// eqs. B-15, B-16): (z_i z_j / 8I) [x_ij J′(x_ij) − ½ x_ii J′(x_ii) − ½ x_jj J′(x_jj)].
 pub(super) fn etheta_phi(zi: f64, zj: f64, aphi: f64, i: f64, s: f64) -> f64 {
