@@ -778,3 +778,65 @@ fn chosen_units_carry_over_to_new_projects() {
     );
     assert_eq!(h.state().prefs.units.temperature, TemperatureUnit::Kelvin);
 }
+
+/// The recovery file of a data directory.
+fn recovery_file(dir: &std::path::Path) -> PathBuf {
+    dir.join("recovery.ron")
+}
+
+/// Leaves a recovery file in `dir` as a crashed session would: sucrose
+/// retyped to `grams`, written, no clean exit. Returns the edited project.
+fn crash_with_unsaved_sucrose(dir: &std::path::Path, grams: &str) -> colligo_core::Project {
+    let mut h = harness_in(dir.to_path_buf());
+    retype(&mut h, "Sucrose", grams);
+    h.state_mut().autosave_now();
+    assert!(recovery_file(dir).exists(), "{:?}", h.state().status);
+    h.state().doc.project.clone()
+}
+
+fn request_close(h: &mut Harness<'_, WorkbenchApp>) {
+    h.input_mut()
+        .viewports
+        .entry(egui::ViewportId::ROOT)
+        .or_default()
+        .events
+        .push(egui::ViewportEvent::Close);
+    h.run();
+}
+
+#[test]
+fn closing_while_recovery_is_offered_keeps_the_recovery_file() {
+    let dir = data_dir("close-recover");
+    let edited = crash_with_unsaved_sucrose(&dir, "446");
+    {
+        let mut h = harness_in(dir.clone());
+        assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+        // The user closes the window without answering the prompt, and
+        // eframe ends the app as it does after a close that is not held.
+        request_close(&mut h);
+        eframe::App::on_exit(h.state_mut(), None);
+        assert!(
+            recovery_file(&dir).exists(),
+            "the recovery file was removed before the user chose"
+        );
+    }
+    // The next start offers it again, and it still holds the edit.
+    let mut h = harness_in(dir.clone());
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    // Shortcuts do not act behind the prompt (Ctrl+O would put the file
+    // dialog in its place).
+    h.key_press_modifiers(Modifiers::COMMAND, Key::N);
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::O);
+    h.run();
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    assert!(recovery_file(&dir).exists());
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(h.state().doc.project.variants, edited.variants);
+    // Answered: discarding removes it, as chosen.
+    let mut h = harness_in(dir.clone());
+    h.get_by_label("Discard").click();
+    h.run();
+    assert!(!recovery_file(&dir).exists(), "discard removes the file");
+}

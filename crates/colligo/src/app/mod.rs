@@ -210,8 +210,12 @@ impl WorkbenchApp {
             self.themed = true;
         }
         self.charts.poll();
-        self.pending
-            .extend(actions::pressed(&ctx).into_iter().map(Command::Action));
+        // A dialog takes over the window: shortcuts do not act behind it
+        // (Ctrl+O would replace it, Ctrl+N the document it asks about).
+        if self.modal.is_none() {
+            self.pending
+                .extend(actions::pressed(&ctx).into_iter().map(Command::Action));
+        }
         self.handle_close_request(&ctx);
         self.refresh();
 

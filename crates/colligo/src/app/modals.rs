@@ -191,10 +191,14 @@ impl WorkbenchApp {
                 });
                 match choice {
                     Some(true) => {
+                        // The file stays until the recovered work is saved
+                        // (autosave keeps it up to date meanwhile).
+                        self.recovery.answered();
                         self.doc = Document::recovered(self.base.clone(), *project, path);
                         self.say("Recovered unsaved work: save it to keep it", false);
                     }
                     Some(false) => {
+                        self.recovery.answered();
                         self.recovery.clear();
                         self.say("Discarded the recovered work", false);
                     }
