@@ -5,6 +5,7 @@
 use std::path::PathBuf;
 
 use colligo::app::commands::{Action, Edit};
+use colligo::app::prefs::ChartTab;
 use colligo::app::{Modal, Startup, WorkbenchApp};
 use colligo_core::models::ModelChoice;
 use colligo_core::quantity::TemperatureUnit;
@@ -839,4 +840,175 @@ fn closing_while_recovery_is_offered_keeps_the_recovery_file() {
     h.get_by_label("Discard").click();
     h.run();
     assert!(!recovery_file(&dir).exists(), "discard removes the file");
+}
+
+/// The samples folder of the repository.
+fn sample_file(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("../../samples")
+        .join(name)
+}
+
+fn variant_names(p: &colligo_core::Project) -> Vec<String> {
+    p.variants.iter().map(|v| v.name.clone()).collect()
+}
+
+fn active_ingredients(p: &colligo_core::Project) -> Vec<String> {
+    let mut ids: Vec<String> = p
+        .active()
+        .lines
+        .iter()
+        .map(|l| l.ingredient.clone())
+        .collect();
+    ids.sort();
+    ids.dedup();
+    ids
+}
+
+/// What the comparison and the ranking show, checked against the open
+/// document (both tabs are visited so each is drawn for it).
+fn assert_comparison_and_ranking_follow(h: &mut Harness<'_, WorkbenchApp>, what: &str) {
+    h.get_by_label("Compare variants").click();
+    h.run();
+    let shown: Vec<String> = h
+        .state()
+        .charts_panel
+        .comparison
+        .rows
+        .iter()
+        .map(|r| r.name.clone())
+        .collect();
+    assert_eq!(
+        shown,
+        variant_names(&h.state().doc.project),
+        "comparison after {what}"
+    );
+    h.get_by_label("What matters most").click();
+    h.run();
+    let mut ranked: Vec<String> = h
+        .state()
+        .charts_panel
+        .ranking
+        .rows
+        .as_ref()
+        .unwrap_or_else(|e| panic!("ranking after {what}: {e}"))
+        .iter()
+        .map(|r| r.ingredient.clone())
+        .collect();
+    ranked.sort();
+    assert_eq!(
+        ranked,
+        active_ingredients(&h.state().doc.project),
+        "ranking after {what}"
+    );
+}
+
+#[test]
+fn comparison_and_ranking_follow_every_document_replacement() {
+    let dir = data_dir("replace-caches");
+    let mut h = harness_in(dir.clone());
+    let ctx = h.ctx.clone();
+    // Sample A (the spread): both views computed for it.
+    assert_comparison_and_ranking_follow(&mut h, "start");
+    let a = h.state().doc.project.clone();
+    // Open sample B (the brine) from the samples folder while the ranking
+    // is shown: the ranking is drawn first, then the comparison.
+    h.state_mut()
+        .apply(&ctx, Action::OpenPath(sample_file("pickle_brine.ron")));
+    h.run();
+    let b = h.state().doc.project.clone();
+    assert_ne!(variant_names(&a), variant_names(&b));
+    let ranked: Vec<String> = h
+        .state()
+        .charts_panel
+        .ranking
+        .rows
+        .as_ref()
+        .map(|r| r.iter().map(|s| s.ingredient.clone()).collect())
+        .unwrap_or_default();
+    assert!(
+        ranked
+            .iter()
+            .all(|id| b.active().lines.iter().any(|l| &l.ingredient == id)),
+        "the ranking lists the previous project's ingredients: {ranked:?}"
+    );
+    assert!(
+        h.query_by_label("Strawberry purée (raw fruit)").is_none(),
+        "an ingredient of the previous project is on screen"
+    );
+    assert_comparison_and_ranking_follow(&mut h, "opening a file");
+    assert!(
+        h.query_by_label("Reduced sugar").is_none(),
+        "a variant of the previous project is on screen"
+    );
+    // Undo does not step back into the previous document.
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert_eq!(h.state().doc.project, b);
+    // The built-in samples, a new project, a recovered one.
+    h.state_mut().apply(&ctx, Action::OpenSample(2));
+    h.run();
+    assert_comparison_and_ranking_follow(&mut h, "opening a sample");
+    h.state_mut().apply(&ctx, Action::NewProject);
+    h.run();
+    assert_comparison_and_ranking_follow(&mut h, "a new project");
+    drop(h);
+    // A crash with unsaved changes to the brine; the next start shows the
+    // spread behind the recovery prompt, both views drawn for it.
+    {
+        let mut h = harness_in(dir.clone());
+        let ctx = h.ctx.clone();
+        h.state_mut().apply(&ctx, Action::OpenSample(1));
+        h.state_mut().apply(
+            &ctx,
+            Edit::SetAmount {
+                line: 0,
+                amount: 710.0,
+                unit: colligo_core::quantity::AmountUnit::G,
+            },
+        );
+        h.run();
+        h.state_mut().autosave_now();
+    }
+    let mut h = harness_in(dir);
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    for tab in [ChartTab::Variants, ChartTab::Ranking] {
+        h.state_mut().charts_panel.tab = tab;
+        h.run();
+    }
+    assert_eq!(
+        h.state().charts_panel.comparison.rows.len(),
+        a.variants.len(),
+        "the comparison was drawn for the spread behind the prompt"
+    );
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(variant_names(&h.state().doc.project), variant_names(&b));
+    assert_comparison_and_ranking_follow(&mut h, "recovering");
+}
+
+#[test]
+fn the_chart_never_shows_the_previous_projects_data() {
+    let mut h = harness("chart-replace");
+    for _ in 0..400 {
+        h.step();
+        if h.state().charts.current().is_some() {
+            break;
+        }
+        std::thread::sleep(std::time::Duration::from_millis(5));
+    }
+    h.run();
+    // The spread's sweep varies its strawberry purée; the legend says so.
+    assert!(
+        h.query_by_label_contains("vs Strawberry purée").is_some(),
+        "no sweep legend on screen"
+    );
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Action::OpenSample(1));
+    // The first frame of the brine, before its own sweep can be back.
+    h.step();
+    assert!(
+        h.query_by_label_contains("vs Strawberry purée").is_none(),
+        "the brine is shown with the spread's sweep"
+    );
 }

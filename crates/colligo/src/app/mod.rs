@@ -228,7 +228,7 @@ impl WorkbenchApp {
                 View {
                     doc: &self.doc,
                     eval: self.eval.as_ref(),
-                    chart: self.charts.current().or(self.charts.last()),
+                    chart: self.charts.shown(&self.doc),
                     chart_busy: self.charts.busy(),
                 }
             };

@@ -244,11 +244,7 @@ impl WorkbenchApp {
                 let text = match self.charts_panel.tab {
                     prefs::ChartTab::Variants => Some(self.charts_panel.comparison.csv()),
                     prefs::ChartTab::Ranking => Some(self.charts_panel.ranking.csv()),
-                    _ => self
-                        .charts
-                        .current()
-                        .or(self.charts.last())
-                        .map(compute::chart_csv),
+                    _ => self.charts.shown(&self.doc).map(compute::chart_csv),
                 };
                 match text {
                     Some(text) => match colligo_core::project::write_atomic(&p, text.as_bytes()) {
