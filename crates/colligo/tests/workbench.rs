@@ -1012,3 +1012,104 @@ fn the_chart_never_shows_the_previous_projects_data() {
         "the brine is shown with the spread's sweep"
     );
 }
+
+/// A new project of 620 g water and 100 g glycerin.
+fn water_and_glycerin(h: &mut Harness<'_, WorkbenchApp>) {
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Action::NewProject);
+    h.run();
+    if h.query_by_label("Discard changes").is_some() {
+        h.get_by_label("Discard changes").click();
+        h.run();
+    }
+    h.state_mut().apply(
+        &ctx,
+        Edit::SetAmount {
+            line: 0,
+            amount: 620.0,
+            unit: colligo_core::quantity::AmountUnit::G,
+        },
+    );
+    h.state_mut().apply(
+        &ctx,
+        Edit::AddLine {
+            ingredient: "glycerin_995".into(),
+            amount: 100.0,
+            unit: colligo_core::quantity::AmountUnit::G,
+        },
+    );
+    h.run();
+}
+
+fn solve_glycerin_for(h: &mut Harness<'_, WorkbenchApp>, target: &str) {
+    open_tools(h, "Solve for a target…");
+    h.get_by_role_and_label(Role::ComboBox, "Vary").click();
+    h.run();
+    h.get_by_role_and_label(Role::Button, "Glycerin 99.5 %")
+        .click();
+    h.run();
+    retype(h, "reaches", target);
+    h.get_by_label("Find amount").click();
+    h.run();
+}
+
+#[test]
+fn a_solved_amount_goes_stale_when_the_formula_changes() {
+    let mut h = harness("goal-stale");
+    water_and_glycerin(&mut h);
+    solve_glycerin_for(&mut h, "0.85");
+    assert!(h.query_by_label_contains("gives a_w 0.85").is_some());
+    assert!(h.query_by_label("Apply to the formula").is_some());
+    // Less water: the amount found no longer gives 0.85.
+    // The dialog covers the formula table: reach the field by focus, as
+    // the keyboard would.
+    h.get_by_role_and_label(Role::TextInput, "Water").focus();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    h.get_by_role_and_label(Role::TextInput, "Water")
+        .type_text("300");
+    h.run();
+    assert_eq!(line_amount(&h, "water"), Some(300.0));
+    assert!(
+        h.query_by_label_contains("gives a_w 0.85").is_none(),
+        "the dialog still claims the old answer"
+    );
+    assert!(
+        h.query_by_label("Apply to the formula").is_none(),
+        "an answer for another formula can be applied"
+    );
+    assert!(h.query_by_label_contains("find it again").is_some());
+    // Solved again for this formula, it applies and gives the target.
+    h.get_by_label("Find amount").click();
+    h.run();
+    h.get_by_label("Apply to the formula").click();
+    h.run();
+    assert!(
+        (aw(&h) - 0.85).abs() < 1e-3,
+        "a_w after applying: {}",
+        aw(&h)
+    );
+}
+
+#[test]
+fn the_solve_dialog_starts_afresh_with_another_document() {
+    let mut h = harness("goal-reset");
+    let ctx = h.ctx.clone();
+    solve_glycerin_for(&mut h, "0.8");
+    assert!(h.query_by_label("Apply to the formula").is_some());
+    // Another document while the dialog shows the answer for this one.
+    h.state_mut().apply(&ctx, Action::OpenSample(2));
+    h.run();
+    assert!(
+        h.query_by_label("Apply to the formula").is_none(),
+        "the previous project's answer can be applied to this one"
+    );
+    open_tools(&mut h, "Solve for a target…");
+    let field = h.get_by_role_and_label(Role::TextInput, "reaches");
+    assert_eq!(
+        field.value().as_deref(),
+        Some("0.85"),
+        "the previous project's target carried over"
+    );
+    assert!(h.query_by_label_contains("gives a_w").is_none());
+}

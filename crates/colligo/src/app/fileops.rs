@@ -14,9 +14,12 @@ impl WorkbenchApp {
     pub(super) fn open_path(&mut self, p: &Path) {
         match Project::load(p, &self.base) {
             Ok(proj) => {
-                self.doc = Document::new(self.base.clone(), proj, Some(p.to_path_buf()));
+                self.replace_document(Document::new(
+                    self.base.clone(),
+                    proj,
+                    Some(p.to_path_buf()),
+                ));
                 self.prefs.remember(p.to_path_buf());
-                self.recovery.clear();
                 self.say(format!("Opened {}", p.display()), false);
             }
             // The open project stays as it was.

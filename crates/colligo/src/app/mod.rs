@@ -309,6 +309,20 @@ impl WorkbenchApp {
         }
     }
 
+    /// Puts `doc` in place of the open document (new, open, sample,
+    /// recover): the one place a document is replaced, so nothing that
+    /// belonged to the old one stays. The solve dialog starts afresh (its
+    /// target and answer were for the old formula); autosave starts
+    /// afresh. The old document's recovery file is removed (it was clean,
+    /// or the user chose to discard it) unless it is the one offered at
+    /// start-up and not yet answered.
+    pub(crate) fn replace_document(&mut self, doc: Document) {
+        self.doc = doc;
+        self.goal = GoalDialog::default();
+        self.autosaved_revision = None;
+        self.recovery.clear();
+    }
+
     /// Applies one command (the only place the document changes).
     pub fn apply(&mut self, ctx: &egui::Context, cmd: impl Into<Command>) {
         match cmd.into() {
@@ -351,7 +365,7 @@ impl WorkbenchApp {
                     units: self.prefs.units,
                     ..Project::default()
                 };
-                self.doc = Document::new(self.base.clone(), project, None);
+                self.replace_document(Document::new(self.base.clone(), project, None));
                 self.say("New project", false);
             }
             Action::Open => {
@@ -367,7 +381,7 @@ impl WorkbenchApp {
             Action::OpenPath(p) => self.open_path(&p),
             Action::OpenSample(i) => match files::sample(&self.base, i) {
                 Ok(p) => {
-                    self.doc = Document::new(self.base.clone(), p, None);
+                    self.replace_document(Document::new(self.base.clone(), p, None));
                     self.say(
                         "Opened a sample project (save it to keep your changes)",
                         false,

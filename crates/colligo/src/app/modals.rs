@@ -193,8 +193,12 @@ impl WorkbenchApp {
                     Some(true) => {
                         // The file stays until the recovered work is saved
                         // (autosave keeps it up to date meanwhile).
+                        self.replace_document(Document::recovered(
+                            self.base.clone(),
+                            *project,
+                            path,
+                        ));
                         self.recovery.answered();
-                        self.doc = Document::recovered(self.base.clone(), *project, path);
                         self.say("Recovered unsaved work: save it to keep it", false);
                     }
                     Some(false) => {
