@@ -104,6 +104,8 @@ impl WorkbenchApp {
                             .on_hover_text("Use the desktop's file chooser")
                             .clicked()
                         {
+                            // The desktop's chooser takes over for a while.
+                            self.keep_unsaved_work();
                             d.browse(ctx);
                         }
                     });
@@ -276,6 +278,7 @@ impl WorkbenchApp {
                 }
             }
             PathPurpose::ImportLibrary => {
+                self.keep_unsaved_work();
                 match colligo_core::userlib::UserLibrary::load(&p, &self.base) {
                     Ok(ul) => {
                         let n = ul.solutes.len() + ul.ingredients.len();

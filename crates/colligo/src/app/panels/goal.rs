@@ -8,7 +8,7 @@ use colligo_core::quantity::{AmountUnit, parse_number, trim_float};
 use colligo_core::water::T_ZERO_C;
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::{Command, Edit};
+use crate::app::commands::{Action, Command, Edit};
 use crate::app::compute;
 use crate::app::document::Document;
 use crate::app::panels::{Panel, View};
@@ -299,8 +299,14 @@ impl GoalDialog {
                     );
                 }
                 ui.horizontal(|ui| {
-                    if ui.button("Find amount").clicked() {
-                        self.solve(doc);
+                    let find = Action::FindAmount;
+                    if ui
+                        .button(find.label())
+                        .on_hover_text(find.tooltip())
+                        .clicked()
+                    {
+                        // The app writes unsaved work first, then solves.
+                        out.push(find.into());
                     }
                 });
                 let stale = self.result.is_some() && self.current_result(doc).is_none();
