@@ -5,6 +5,7 @@
 use std::path::PathBuf;
 
 use colligo::app::commands::{Action, Edit};
+use colligo::app::prefs::ChartTab;
 use colligo::app::{Modal, Startup, WorkbenchApp};
 use colligo_core::models::ModelChoice;
 use colligo_core::quantity::TemperatureUnit;
@@ -777,4 +778,433 @@ fn chosen_units_carry_over_to_new_projects() {
         TemperatureUnit::Kelvin
     );
     assert_eq!(h.state().prefs.units.temperature, TemperatureUnit::Kelvin);
+}
+
+/// The recovery file of a data directory.
+fn recovery_file(dir: &std::path::Path) -> PathBuf {
+    dir.join("recovery.ron")
+}
+
+/// Leaves a recovery file in `dir` as a crashed session would: sucrose
+/// retyped to `grams`, written, no clean exit. Returns the edited project.
+fn crash_with_unsaved_sucrose(dir: &std::path::Path, grams: &str) -> colligo_core::Project {
+    let mut h = harness_in(dir.to_path_buf());
+    retype(&mut h, "Sucrose", grams);
+    h.state_mut().autosave_now();
+    assert!(recovery_file(dir).exists(), "{:?}", h.state().status);
+    h.state().doc.project.clone()
+}
+
+fn request_close(h: &mut Harness<'_, WorkbenchApp>) {
+    h.input_mut()
+        .viewports
+        .entry(egui::ViewportId::ROOT)
+        .or_default()
+        .events
+        .push(egui::ViewportEvent::Close);
+    h.run();
+}
+
+#[test]
+fn closing_while_recovery_is_offered_keeps_the_recovery_file() {
+    let dir = data_dir("close-recover");
+    let edited = crash_with_unsaved_sucrose(&dir, "446");
+    {
+        let mut h = harness_in(dir.clone());
+        assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+        // The user closes the window without answering the prompt, and
+        // eframe ends the app as it does after a close that is not held.
+        request_close(&mut h);
+        eframe::App::on_exit(h.state_mut(), None);
+        assert!(
+            recovery_file(&dir).exists(),
+            "the recovery file was removed before the user chose"
+        );
+    }
+    // The next start offers it again, and it still holds the edit.
+    let mut h = harness_in(dir.clone());
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    // Shortcuts do not act behind the prompt (Ctrl+O would put the file
+    // dialog in its place).
+    h.key_press_modifiers(Modifiers::COMMAND, Key::N);
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::O);
+    h.run();
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    assert!(recovery_file(&dir).exists());
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(h.state().doc.project.variants, edited.variants);
+    // Answered: discarding removes it, as chosen.
+    let mut h = harness_in(dir.clone());
+    h.get_by_label("Discard").click();
+    h.run();
+    assert!(!recovery_file(&dir).exists(), "discard removes the file");
+}
+
+/// The samples folder of the repository.
+fn sample_file(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("../../samples")
+        .join(name)
+}
+
+fn variant_names(p: &colligo_core::Project) -> Vec<String> {
+    p.variants.iter().map(|v| v.name.clone()).collect()
+}
+
+fn active_ingredients(p: &colligo_core::Project) -> Vec<String> {
+    let mut ids: Vec<String> = p
+        .active()
+        .lines
+        .iter()
+        .map(|l| l.ingredient.clone())
+        .collect();
+    ids.sort();
+    ids.dedup();
+    ids
+}
+
+/// What the comparison and the ranking show, checked against the open
+/// document (both tabs are visited so each is drawn for it).
+fn assert_comparison_and_ranking_follow(h: &mut Harness<'_, WorkbenchApp>, what: &str) {
+    h.get_by_label("Compare variants").click();
+    h.run();
+    let shown: Vec<String> = h
+        .state()
+        .charts_panel
+        .comparison
+        .rows
+        .iter()
+        .map(|r| r.name.clone())
+        .collect();
+    assert_eq!(
+        shown,
+        variant_names(&h.state().doc.project),
+        "comparison after {what}"
+    );
+    h.get_by_label("What matters most").click();
+    h.run();
+    let mut ranked: Vec<String> = h
+        .state()
+        .charts_panel
+        .ranking
+        .rows
+        .as_ref()
+        .unwrap_or_else(|e| panic!("ranking after {what}: {e}"))
+        .iter()
+        .map(|r| r.ingredient.clone())
+        .collect();
+    ranked.sort();
+    assert_eq!(
+        ranked,
+        active_ingredients(&h.state().doc.project),
+        "ranking after {what}"
+    );
+}
+
+#[test]
+fn comparison_and_ranking_follow_every_document_replacement() {
+    let dir = data_dir("replace-caches");
+    let mut h = harness_in(dir.clone());
+    let ctx = h.ctx.clone();
+    // Sample A (the spread): both views computed for it.
+    assert_comparison_and_ranking_follow(&mut h, "start");
+    let a = h.state().doc.project.clone();
+    // Open sample B (the brine) from the samples folder while the ranking
+    // is shown: the ranking is drawn first, then the comparison.
+    h.state_mut()
+        .apply(&ctx, Action::OpenPath(sample_file("pickle_brine.ron")));
+    h.run();
+    let b = h.state().doc.project.clone();
+    assert_ne!(variant_names(&a), variant_names(&b));
+    let ranked: Vec<String> = h
+        .state()
+        .charts_panel
+        .ranking
+        .rows
+        .as_ref()
+        .map(|r| r.iter().map(|s| s.ingredient.clone()).collect())
+        .unwrap_or_default();
+    assert!(
+        ranked
+            .iter()
+            .all(|id| b.active().lines.iter().any(|l| &l.ingredient == id)),
+        "the ranking lists the previous project's ingredients: {ranked:?}"
+    );
+    assert!(
+        h.query_by_label("Strawberry purée (raw fruit)").is_none(),
+        "an ingredient of the previous project is on screen"
+    );
+    assert_comparison_and_ranking_follow(&mut h, "opening a file");
+    assert!(
+        h.query_by_label("Reduced sugar").is_none(),
+        "a variant of the previous project is on screen"
+    );
+    // Undo does not step back into the previous document.
+    h.key_press_modifiers(Modifiers::COMMAND, Key::Z);
+    h.run();
+    assert_eq!(h.state().doc.project, b);
+    // The built-in samples, a new project, a recovered one.
+    h.state_mut().apply(&ctx, Action::OpenSample(2));
+    h.run();
+    assert_comparison_and_ranking_follow(&mut h, "opening a sample");
+    h.state_mut().apply(&ctx, Action::NewProject);
+    h.run();
+    assert_comparison_and_ranking_follow(&mut h, "a new project");
+    drop(h);
+    // A crash with unsaved changes to the brine; the next start shows the
+    // spread behind the recovery prompt, both views drawn for it.
+    {
+        let mut h = harness_in(dir.clone());
+        let ctx = h.ctx.clone();
+        h.state_mut().apply(&ctx, Action::OpenSample(1));
+        h.state_mut().apply(
+            &ctx,
+            Edit::SetAmount {
+                line: 0,
+                amount: 710.0,
+                unit: colligo_core::quantity::AmountUnit::G,
+            },
+        );
+        h.run();
+        h.state_mut().autosave_now();
+    }
+    let mut h = harness_in(dir);
+    assert!(matches!(h.state().modal, Some(Modal::Recover { .. })));
+    for tab in [ChartTab::Variants, ChartTab::Ranking] {
+        h.state_mut().charts_panel.tab = tab;
+        h.run();
+    }
+    assert_eq!(
+        h.state().charts_panel.comparison.rows.len(),
+        a.variants.len(),
+        "the comparison was drawn for the spread behind the prompt"
+    );
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(variant_names(&h.state().doc.project), variant_names(&b));
+    assert_comparison_and_ranking_follow(&mut h, "recovering");
+}
+
+#[test]
+fn the_chart_never_shows_the_previous_projects_data() {
+    let mut h = harness("chart-replace");
+    for _ in 0..400 {
+        h.step();
+        if h.state().charts.current().is_some() {
+            break;
+        }
+        std::thread::sleep(std::time::Duration::from_millis(5));
+    }
+    h.run();
+    // The spread's sweep varies its strawberry purée; the legend says so.
+    assert!(
+        h.query_by_label_contains("vs Strawberry purée").is_some(),
+        "no sweep legend on screen"
+    );
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Action::OpenSample(1));
+    // The first frame of the brine, before its own sweep can be back.
+    h.step();
+    assert!(
+        h.query_by_label_contains("vs Strawberry purée").is_none(),
+        "the brine is shown with the spread's sweep"
+    );
+}
+
+/// A new project of 620 g water and 100 g glycerin.
+fn water_and_glycerin(h: &mut Harness<'_, WorkbenchApp>) {
+    let ctx = h.ctx.clone();
+    h.state_mut().apply(&ctx, Action::NewProject);
+    h.run();
+    if h.query_by_label("Discard changes").is_some() {
+        h.get_by_label("Discard changes").click();
+        h.run();
+    }
+    h.state_mut().apply(
+        &ctx,
+        Edit::SetAmount {
+            line: 0,
+            amount: 620.0,
+            unit: colligo_core::quantity::AmountUnit::G,
+        },
+    );
+    h.state_mut().apply(
+        &ctx,
+        Edit::AddLine {
+            ingredient: "glycerin_995".into(),
+            amount: 100.0,
+            unit: colligo_core::quantity::AmountUnit::G,
+        },
+    );
+    h.run();
+}
+
+fn solve_glycerin_for(h: &mut Harness<'_, WorkbenchApp>, target: &str) {
+    open_tools(h, "Solve for a target…");
+    h.get_by_role_and_label(Role::ComboBox, "Vary").click();
+    h.run();
+    h.get_by_role_and_label(Role::Button, "Glycerin 99.5 %")
+        .click();
+    h.run();
+    retype(h, "reaches", target);
+    h.get_by_label("Find amount").click();
+    h.run();
+}
+
+#[test]
+fn a_solved_amount_goes_stale_when_the_formula_changes() {
+    let mut h = harness("goal-stale");
+    water_and_glycerin(&mut h);
+    solve_glycerin_for(&mut h, "0.85");
+    assert!(h.query_by_label_contains("gives a_w 0.85").is_some());
+    assert!(h.query_by_label("Apply to the formula").is_some());
+    // Less water: the amount found no longer gives 0.85.
+    // The dialog covers the formula table: reach the field by focus, as
+    // the keyboard would.
+    h.get_by_role_and_label(Role::TextInput, "Water").focus();
+    h.run();
+    h.key_press_modifiers(Modifiers::COMMAND, Key::A);
+    h.get_by_role_and_label(Role::TextInput, "Water")
+        .type_text("300");
+    h.run();
+    assert_eq!(line_amount(&h, "water"), Some(300.0));
+    assert!(
+        h.query_by_label_contains("gives a_w 0.85").is_none(),
+        "the dialog still claims the old answer"
+    );
+    assert!(
+        h.query_by_label("Apply to the formula").is_none(),
+        "an answer for another formula can be applied"
+    );
+    assert!(h.query_by_label_contains("find it again").is_some());
+    // Solved again for this formula, it applies and gives the target.
+    h.get_by_label("Find amount").click();
+    h.run();
+    h.get_by_label("Apply to the formula").click();
+    h.run();
+    assert!(
+        (aw(&h) - 0.85).abs() < 1e-3,
+        "a_w after applying: {}",
+        aw(&h)
+    );
+}
+
+#[test]
+fn the_solve_dialog_starts_afresh_with_another_document() {
+    let mut h = harness("goal-reset");
+    let ctx = h.ctx.clone();
+    solve_glycerin_for(&mut h, "0.8");
+    assert!(h.query_by_label("Apply to the formula").is_some());
+    // Another document while the dialog shows the answer for this one.
+    h.state_mut().apply(&ctx, Action::OpenSample(2));
+    h.run();
+    assert!(
+        h.query_by_label("Apply to the formula").is_none(),
+        "the previous project's answer can be applied to this one"
+    );
+    open_tools(&mut h, "Solve for a target…");
+    let field = h.get_by_role_and_label(Role::TextInput, "reaches");
+    assert_eq!(
+        field.value().as_deref(),
+        Some("0.85"),
+        "the previous project's target carried over"
+    );
+    assert!(h.query_by_label_contains("gives a_w").is_none());
+}
+
+/// A harness whose frames are 1/60 s apart, so that a few clicks and
+/// keys stay well inside the 2 s autosave delay.
+fn quick_harness_in(dir: PathBuf) -> Harness<'static, WorkbenchApp> {
+    let app = WorkbenchApp::new(Startup {
+        open: None,
+        data_dir: Some(dir),
+        prefs: Default::default(),
+    });
+    let mut h = Harness::builder()
+        .with_size(egui::vec2(1400.0, 900.0))
+        .with_step_dt(1.0 / 60.0)
+        .with_max_steps(64)
+        .build_ui_state(|ui, app: &mut WorkbenchApp| app.ui_root(ui), app);
+    h.run();
+    h
+}
+
+#[test]
+fn losing_focus_writes_the_recovery_file_at_once() {
+    let dir = data_dir("focus-loss");
+    let edited = {
+        let mut h = quick_harness_in(dir.clone());
+        retype(&mut h, "Sucrose", "448");
+        assert!(h.state().doc.is_dirty());
+        assert!(
+            !recovery_file(&dir).exists(),
+            "written before the delay: this test needs a shorter step"
+        );
+        h.event(egui::Event::WindowFocused(false));
+        h.run();
+        assert!(recovery_file(&dir).exists(), "{:?}", h.state().status);
+        h.state().doc.project.clone()
+        // Dropped without a clean exit: a crash right after the focus loss.
+    };
+    let mut h = harness_in(dir);
+    h.get_by_label("Recover").click();
+    h.run();
+    assert_eq!(h.state().doc.project.variants, edited.variants);
+}
+
+#[test]
+fn unsaved_work_is_written_before_a_solve() {
+    let dir = data_dir("before-solve");
+    let mut h = quick_harness_in(dir.clone());
+    retype(&mut h, "Sucrose", "449");
+    open_tools(&mut h, "Solve for a target…");
+    h.get_by_role_and_label(Role::ComboBox, "Vary").click();
+    h.run();
+    h.get_by_role_and_label(Role::Button, "Glycerin 99.5 %")
+        .click();
+    h.run();
+    retype(&mut h, "reaches", "0.85");
+    assert!(
+        !recovery_file(&dir).exists(),
+        "written before the delay: this test needs a shorter step"
+    );
+    h.get_by_label("Find amount").click();
+    h.run();
+    assert!(h.query_by_label_contains("gives a_w 0.85").is_some());
+    let text = std::fs::read_to_string(recovery_file(&dir))
+        .unwrap_or_else(|e| panic!("no recovery file before the solve: {e}"));
+    assert!(text.contains("449"), "{text}");
+}
+
+#[test]
+fn steady_editing_is_written_within_2_s() {
+    let dir = data_dir("steady");
+    let mut h = quick_harness_in(dir.clone());
+    let ctx = h.ctx.clone();
+    let start = ctx.input(|i| i.time);
+    // A change every 1/60 s for 3 s: never a pause of 2 s.
+    let mut amount = 560.0;
+    while ctx.input(|i| i.time) - start < 3.0 {
+        amount += 1.0;
+        h.state_mut().apply(
+            &ctx,
+            Edit::SetAmount {
+                line: 1,
+                amount,
+                unit: colligo_core::quantity::AmountUnit::G,
+            },
+        );
+        h.step();
+        if recovery_file(&dir).exists() {
+            break;
+        }
+    }
+    let elapsed = ctx.input(|i| i.time) - start;
+    assert!(
+        recovery_file(&dir).exists(),
+        "nothing written after {elapsed:.2} s of steady editing"
+    );
+    assert!(elapsed <= 2.1, "first written after {elapsed:.2} s");
 }

@@ -32,6 +32,9 @@ pub enum Action {
     Quit,
     /// Open the solve-for-a-target dialog.
     SolveForTarget,
+    /// Find the amount the solve dialog asks for (unsaved work is written
+    /// to the recovery file first: the search can take a while).
+    FindAmount,
     /// Open the window of the user's own solutes and ingredients.
     UserLibrary,
     /// Export the data of the chart shown.
@@ -88,6 +91,7 @@ impl Action {
             Action::Redo => "Redo",
             Action::Quit => "Quit",
             Action::SolveForTarget => "Solve for a target…",
+            Action::FindAmount => "Find amount",
             Action::UserLibrary => "My ingredients and solutes…",
             Action::ExportChart => "Export CSV…",
             Action::ExportUserLibrary => "Export to a file…",
@@ -108,6 +112,7 @@ impl Action {
             Action::Redo => "Redo the change just undone",
             Action::Quit => "Close Colligo (asks about unsaved changes)",
             Action::SolveForTarget => "Find the amount of one ingredient that reaches a target",
+            Action::FindAmount => "Search for the amount that reaches the target",
             Action::UserLibrary => "Define your own solutes and ingredients",
             Action::ExportChart => "Write the data of the chart shown to a CSV file",
             Action::ExportUserLibrary => "Write your own records to a library file",

@@ -62,6 +62,31 @@ pub fn key_of(
     h.finish()
 }
 
+/// Hash of what a view of the whole project depends on: every variant's
+/// name and [`key_of`] inputs. Views key on values, not on the document's
+/// revision, so no path that changes the project (or replaces the
+/// document) without a new revision can leave them stale.
+pub fn project_key(doc: &Document) -> u64 {
+    let cond = doc.project.conditions.to_conditions();
+    let mut h = DefaultHasher::new();
+    doc.project.variants.len().hash(&mut h);
+    for v in &doc.project.variants {
+        v.name.hash(&mut h);
+        key_of(doc.library_revision, v, &cond, doc.project.model).hash(&mut h);
+    }
+    h.finish()
+}
+
+/// [`key_of`] the document's active variant.
+pub fn active_key(doc: &Document) -> u64 {
+    key_of(
+        doc.library_revision,
+        doc.formula(),
+        &doc.project.conditions.to_conditions(),
+        doc.project.model,
+    )
+}
+
 /// Evaluates the formula under the chosen model and under every model for
 /// the comparison; `key` is [`key_of`] its inputs.
 pub fn evaluate(
@@ -212,6 +237,8 @@ pub enum ChartData {
 #[derive(Debug, Clone)]
 struct Request {
     key: u64,
+    /// The [`Document::id`] it was asked for.
+    document: u64,
     /// Repainted when the result is ready.
     ctx: Option<egui::Context>,
     lib: Arc<Library>,
@@ -230,11 +257,24 @@ impl Default for ChartWorker {
 /// Chart computations on a worker thread; the newest request wins.
 pub struct ChartWorker {
     tx: Sender<Request>,
-    rx: Receiver<(u64, ChartData, Duration)>,
+    rx: Receiver<ChartResult>,
     /// Key of the last request sent.
     pub requested: Option<u64>,
-    /// Latest result: (key, data, time taken).
-    pub latest: Option<(u64, ChartData, Duration)>,
+    /// Latest result.
+    pub latest: Option<ChartResult>,
+}
+
+/// A finished chart computation.
+#[derive(Debug, Clone)]
+pub struct ChartResult {
+    /// Key of its request.
+    pub key: u64,
+    /// The [`Document::id`] it was computed for.
+    pub document: u64,
+    /// The data.
+    pub data: ChartData,
+    /// Time taken.
+    pub elapsed: Duration,
 }
 
 impl ChartWorker {
@@ -252,7 +292,13 @@ impl ChartWorker {
                     }
                     let start = Instant::now();
                     let data = compute_chart(&req);
-                    if done.send((req.key, data, start.elapsed())).is_err() {
+                    let result = ChartResult {
+                        key: req.key,
+                        document: req.document,
+                        data,
+                        elapsed: start.elapsed(),
+                    };
+                    if done.send(result).is_err() {
                         break;
                     }
                     if let Some(ctx) = &req.ctx {
@@ -285,6 +331,7 @@ impl ChartWorker {
         self.requested = Some(key);
         let _ = self.tx.send(Request {
             key,
+            document: doc.id,
             ctx: Some(ctx.clone()),
             lib: doc.lib.clone(),
             formula: formula.clone(),
@@ -304,19 +351,25 @@ impl ChartWorker {
     /// The latest data when it matches the last request.
     pub fn current(&self) -> Option<&ChartData> {
         match (&self.latest, self.requested) {
-            (Some((k, d, _)), Some(r)) if *k == r => Some(d),
+            (Some(l), Some(r)) if l.key == r => Some(&l.data),
             _ => None,
         }
     }
 
-    /// The latest data even if a newer request is still being computed.
-    pub fn last(&self) -> Option<&ChartData> {
-        self.latest.as_ref().map(|(_, d, _)| d)
+    /// What to show for `doc`: the latest data computed for this document,
+    /// even if a newer request is still being computed; never another
+    /// document's (in the first frame after a document is replaced, the
+    /// last request is still the old document's).
+    pub fn shown(&self, doc: &Document) -> Option<&ChartData> {
+        self.latest
+            .as_ref()
+            .filter(|l| l.document == doc.id)
+            .map(|l| &l.data)
     }
 
     /// Whether a request is still being computed.
     pub fn busy(&self) -> bool {
-        self.requested.is_some() && self.latest.as_ref().map(|l| l.0) != self.requested
+        self.requested.is_some() && self.latest.as_ref().map(|l| l.key) != self.requested
     }
 }
 
@@ -431,6 +484,7 @@ pub fn chart_now(
 ) -> ChartData {
     compute_chart(&Request {
         key: 0,
+        document: 0,
         ctx: None,
         lib: lib.clone(),
         formula: formula.clone(),

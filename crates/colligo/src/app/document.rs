@@ -19,6 +19,9 @@ fn next_revision() -> u64 {
 
 /// The open project and everything derived from it that must stay in step.
 pub struct Document {
+    /// Which document this is: unique in the process, never changes (views
+    /// computed for one document are never shown for another).
+    pub id: u64,
     /// The project being edited.
     pub project: Project,
     /// Where it was opened from or last saved to.
@@ -42,6 +45,7 @@ impl Document {
     /// A document for `project`, as opened from `path` (None: never saved).
     pub fn new(base: Arc<Library>, project: Project, path: Option<PathBuf>) -> Self {
         let mut d = Document {
+            id: next_revision(),
             saved: project.clone(),
             project,
             path,

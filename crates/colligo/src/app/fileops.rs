@@ -12,11 +12,16 @@ use super::{Modal, WorkbenchApp};
 
 impl WorkbenchApp {
     pub(super) fn open_path(&mut self, p: &Path) {
+        // Reading a file the user picked may be slow or fail badly.
+        self.keep_unsaved_work();
         match Project::load(p, &self.base) {
             Ok(proj) => {
-                self.doc = Document::new(self.base.clone(), proj, Some(p.to_path_buf()));
+                self.replace_document(Document::new(
+                    self.base.clone(),
+                    proj,
+                    Some(p.to_path_buf()),
+                ));
                 self.prefs.remember(p.to_path_buf());
-                self.recovery.clear();
                 self.say(format!("Opened {}", p.display()), false);
             }
             // The open project stays as it was.
@@ -31,6 +36,7 @@ impl WorkbenchApp {
                 self.prefs.remember(p.to_path_buf());
                 self.recovery.clear();
                 self.autosaved_revision = None;
+                self.unwritten_since = None;
                 self.say(format!("Saved {}", p.display()), false);
             }
             Err(e) => self.say(format!("Not saved: {e}"), true),
@@ -84,29 +90,55 @@ impl WorkbenchApp {
         )));
     }
 
-    /// Writes the recovery file a few seconds after unsaved changes stop.
+    /// Writes the recovery file 2 s after the first change it does not
+    /// hold yet (so typing writes at most every 2 s, not on every key, and
+    /// steady editing never goes longer unwritten), and at once when the
+    /// window loses the focus: the user may be gone for long, or the
+    /// desktop may end the session.
     pub(super) fn autosave(&mut self, ctx: &egui::Context, time: f64) {
-        if !self.doc.is_dirty() {
+        let focus_lost = ctx.input(|i| {
+            i.events
+                .iter()
+                .any(|e| matches!(e, egui::Event::WindowFocused(false)))
+        });
+        if focus_lost {
+            self.keep_unsaved_work();
             return;
         }
-        if self.autosaved_revision == Some(self.doc.revision) {
+        if !self.doc.is_dirty() || self.autosaved_revision == Some(self.doc.revision) {
+            self.unwritten_since = None;
             return;
         }
+        let since = *self.unwritten_since.get_or_insert(time);
         let wait = 2.0;
-        if time - self.last_change >= wait {
-            if let Err(e) = self
-                .recovery
-                .write(&self.doc.project, self.doc.path.as_deref())
-            {
-                self.say(format!("Autosave failed: {e}"), true);
-            }
-            self.autosaved_revision = Some(self.doc.revision);
+        if time - since >= wait {
+            self.keep_unsaved_work();
         } else {
             // One delayed repaint to write it; no repainting while idle otherwise.
-            ctx.request_repaint_after(Duration::from_secs_f64(
-                wait - (time - self.last_change) + 0.05,
-            ));
+            ctx.request_repaint_after(Duration::from_secs_f64(wait - (time - since) + 0.05));
         }
+    }
+
+    /// Writes the recovery file now if the document has unsaved changes
+    /// not written yet: on focus loss, before work that may take long or
+    /// read another file (a solve, opening or importing a file, the native
+    /// chooser), and when eframe ends the app with unsaved changes. Not
+    /// while the user is discarding them.
+    pub(super) fn keep_unsaved_work(&mut self) {
+        if self.discarding
+            || !self.doc.is_dirty()
+            || self.autosaved_revision == Some(self.doc.revision)
+        {
+            return;
+        }
+        if let Err(e) = self
+            .recovery
+            .write(&self.doc.project, self.doc.path.as_deref())
+        {
+            self.say(format!("Autosave failed: {e}"), true);
+        }
+        self.autosaved_revision = Some(self.doc.revision);
+        self.unwritten_since = None;
     }
 
     /// Writes the recovery file now (tests use this to simulate a crash).

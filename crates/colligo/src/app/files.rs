@@ -41,10 +41,15 @@ pub fn sample(lib: &Library, i: usize) -> Result<Project, String> {
     Project::from_ron(text, name, lib).map_err(|e| e.to_string())
 }
 
-/// Where recovery data lives.
+/// Where recovery data lives, and whether the file there waits for the
+/// user's answer.
 #[derive(Debug, Clone)]
 pub struct Recovery {
     dir: Option<PathBuf>,
+    /// A file left by an earlier session was offered and the user has not
+    /// chosen yet: until [`Recovery::answered`], nothing removes or
+    /// overwrites it (closing the window keeps it for the next start).
+    awaiting_answer: bool,
 }
 
 /// What a recovery file holds: the project and where it came from.
@@ -61,7 +66,10 @@ pub struct RecoveryRecord {
 impl Recovery {
     /// Recovery under `dir` (None disables it).
     pub fn new(dir: Option<PathBuf>) -> Self {
-        Recovery { dir }
+        Recovery {
+            dir,
+            awaiting_answer: false,
+        }
     }
 
     fn file(&self) -> Option<PathBuf> {
@@ -71,9 +79,16 @@ impl Recovery {
     /// Writes the unsaved project (atomically).
     ///
     /// # Errors
-    /// I/O errors as text.
+    /// I/O errors as text; refused while a file from an earlier session
+    /// waits for the user's answer.
     pub fn write(&self, project: &Project, path: Option<&Path>) -> Result<(), String> {
         let Some(f) = self.file() else { return Ok(()) };
+        if self.awaiting_answer {
+            return Err(format!(
+                "{} holds work from an earlier session: recover or discard it first",
+                f.display()
+            ));
+        }
         if let Some(d) = f.parent() {
             std::fs::create_dir_all(d).map_err(|e| format!("{}: {e}", d.display()))?;
         }
@@ -89,20 +104,37 @@ impl Recovery {
         colligo_core::project::write_atomic(&f, text.as_bytes()).map_err(|e| e.to_string())
     }
 
-    /// Removes the recovery file (after a save, or a clean exit).
+    /// Removes the recovery file (after a save, a discard, or a clean
+    /// exit); does nothing while an offered file waits for an answer.
     pub fn clear(&self) {
+        if self.awaiting_answer {
+            return;
+        }
         if let Some(f) = self.file() {
             let _ = std::fs::remove_file(f);
         }
     }
 
-    /// A recovery left behind by a session that did not end cleanly.
-    pub fn pending(&self, lib: &Library) -> Option<(RecoveryRecord, Project)> {
+    /// A recovery left behind by a session that did not end cleanly. When
+    /// there is one, it is kept on disk until [`Recovery::answered`].
+    pub fn pending(&mut self, lib: &Library) -> Option<(RecoveryRecord, Project)> {
         let f = self.file()?;
         let text = std::fs::read_to_string(&f).ok()?;
         let rec: RecoveryRecord = ron::from_str(&text).ok()?;
         let p = Project::from_ron(&rec.project_ron, &f.display().to_string(), lib).ok()?;
+        self.awaiting_answer = true;
         Some((rec, p))
+    }
+
+    /// The user recovered or discarded the offered file: from now on it is
+    /// this session's to overwrite or remove.
+    pub fn answered(&mut self) {
+        self.awaiting_answer = false;
+    }
+
+    /// Whether an offered file waits for the user's answer.
+    pub fn awaiting_answer(&self) -> bool {
+        self.awaiting_answer
     }
 }
 

@@ -89,7 +89,9 @@ pub struct WorkbenchApp {
     themed: bool,
     last_title: String,
     autosaved_revision: Option<u64>,
-    last_change: f64,
+    /// Frame time at which autosave first saw the current unwritten
+    /// changes (None: nothing unwritten).
+    unwritten_since: Option<f64>,
     data_dir: Option<PathBuf>,
 }
 
@@ -157,7 +159,7 @@ impl WorkbenchApp {
             themed: false,
             last_title: String::new(),
             autosaved_revision: None,
-            last_change: 0.0,
+            unwritten_since: None,
             data_dir: startup.data_dir,
         };
         if let Some((rec, project)) = app.recovery.pending(&app.base) {
@@ -210,8 +212,12 @@ impl WorkbenchApp {
             self.themed = true;
         }
         self.charts.poll();
-        self.pending
-            .extend(actions::pressed(&ctx).into_iter().map(Command::Action));
+        // A dialog takes over the window: shortcuts do not act behind it
+        // (Ctrl+O would replace it, Ctrl+N the document it asks about).
+        if self.modal.is_none() {
+            self.pending
+                .extend(actions::pressed(&ctx).into_iter().map(Command::Action));
+        }
         self.handle_close_request(&ctx);
         self.refresh();
 
@@ -224,7 +230,7 @@ impl WorkbenchApp {
                 View {
                     doc: &self.doc,
                     eval: self.eval.as_ref(),
-                    chart: self.charts.current().or(self.charts.last()),
+                    chart: self.charts.shown(&self.doc),
                     chart_busy: self.charts.busy(),
                 }
             };
@@ -305,18 +311,32 @@ impl WorkbenchApp {
         }
     }
 
+    /// Puts `doc` in place of the open document (new, open, sample,
+    /// recover): the one place a document is replaced, so nothing that
+    /// belonged to the old one stays. The solve dialog starts afresh (its
+    /// target and answer were for the old formula); autosave starts
+    /// afresh. The old document's recovery file is removed (it was clean,
+    /// or the user chose to discard it) unless it is the one offered at
+    /// start-up and not yet answered.
+    pub(crate) fn replace_document(&mut self, doc: Document) {
+        self.doc = doc;
+        self.goal = GoalDialog::default();
+        self.autosaved_revision = None;
+        self.unwritten_since = None;
+        self.recovery.clear();
+    }
+
     /// Applies one command (the only place the document changes).
     pub fn apply(&mut self, ctx: &egui::Context, cmd: impl Into<Command>) {
         match cmd.into() {
-            Command::Edit(e) => self.apply_edit(ctx, e),
+            Command::Edit(e) => self.apply_edit(e),
             Command::Action(a) => self.act(ctx, a),
         }
     }
 
-    fn apply_edit(&mut self, ctx: &egui::Context, edit: Edit) {
+    fn apply_edit(&mut self, edit: Edit) {
         match apply_edit(&mut self.doc, &edit) {
             Ok(()) => {
-                self.last_change = ctx.input(|i| i.time);
                 if matches!(edit, Edit::SetTemperatureUnit(_) | Edit::SetPressureUnit(_)) {
                     // Remembered for new projects too.
                     self.prefs.units = self.doc.project.units;
@@ -347,7 +367,7 @@ impl WorkbenchApp {
                     units: self.prefs.units,
                     ..Project::default()
                 };
-                self.doc = Document::new(self.base.clone(), project, None);
+                self.replace_document(Document::new(self.base.clone(), project, None));
                 self.say("New project", false);
             }
             Action::Open => {
@@ -363,7 +383,7 @@ impl WorkbenchApp {
             Action::OpenPath(p) => self.open_path(&p),
             Action::OpenSample(i) => match files::sample(&self.base, i) {
                 Ok(p) => {
-                    self.doc = Document::new(self.base.clone(), p, None);
+                    self.replace_document(Document::new(self.base.clone(), p, None));
                     self.say(
                         "Opened a sample project (save it to keep your changes)",
                         false,
@@ -383,6 +403,11 @@ impl WorkbenchApp {
                 ctx.send_viewport_cmd(ViewportCommand::Close);
             }
             Action::SolveForTarget => self.goal.open_for(&self.doc),
+            Action::FindAmount => {
+                self.keep_unsaved_work();
+                self.goal.solve(&self.doc);
+                ctx.request_repaint();
+            }
             Action::UserLibrary => self.library_window.open = true,
             Action::ExportChart => self.export_chart_dialog(),
             Action::ExportUserLibrary => self.library_dialog(PathPurpose::ExportLibrary),
@@ -436,8 +461,13 @@ impl eframe::App for WorkbenchApp {
         if std::env::var_os("COLLIGO_FRAME_STATS").is_some() {
             eprintln!("{}", self.stats.report());
         }
-        if !self.doc.is_dirty() {
+        if self.allow_close || !self.doc.is_dirty() {
+            // Quit (after save or discard) or nothing unsaved.
             self.recovery.clear();
+        } else {
+            // Ended with unsaved changes nobody discarded (the desktop
+            // session ending, say): keep the newest of them.
+            self.keep_unsaved_work();
         }
     }
 }

@@ -104,6 +104,8 @@ impl WorkbenchApp {
                             .on_hover_text("Use the desktop's file chooser")
                             .clicked()
                         {
+                            // The desktop's chooser takes over for a while.
+                            self.keep_unsaved_work();
                             d.browse(ctx);
                         }
                     });
@@ -191,10 +193,18 @@ impl WorkbenchApp {
                 });
                 match choice {
                     Some(true) => {
-                        self.doc = Document::recovered(self.base.clone(), *project, path);
+                        // The file stays until the recovered work is saved
+                        // (autosave keeps it up to date meanwhile).
+                        self.replace_document(Document::recovered(
+                            self.base.clone(),
+                            *project,
+                            path,
+                        ));
+                        self.recovery.answered();
                         self.say("Recovered unsaved work: save it to keep it", false);
                     }
                     Some(false) => {
+                        self.recovery.answered();
                         self.recovery.clear();
                         self.say("Discarded the recovered work", false);
                     }
@@ -240,11 +250,7 @@ impl WorkbenchApp {
                 let text = match self.charts_panel.tab {
                     prefs::ChartTab::Variants => Some(self.charts_panel.comparison.csv()),
                     prefs::ChartTab::Ranking => Some(self.charts_panel.ranking.csv()),
-                    _ => self
-                        .charts
-                        .current()
-                        .or(self.charts.last())
-                        .map(compute::chart_csv),
+                    _ => self.charts.shown(&self.doc).map(compute::chart_csv),
                 };
                 match text {
                     Some(text) => match colligo_core::project::write_atomic(&p, text.as_bytes()) {
@@ -272,6 +278,7 @@ impl WorkbenchApp {
                 }
             }
             PathPurpose::ImportLibrary => {
+                self.keep_unsaved_work();
                 match colligo_core::userlib::UserLibrary::load(&p, &self.base) {
                     Ok(ul) => {
                         let n = ul.solutes.len() + ul.ingredients.len();

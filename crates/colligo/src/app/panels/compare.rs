@@ -7,6 +7,7 @@ use colligo_core::sweep::{Sensitivity, sensitivities};
 use egui::RichText;
 use egui_plot::{Bar, BarChart, Legend, Plot};
 
+use crate::app::compute;
 use crate::app::document::Document;
 use crate::app::theme;
 
@@ -22,7 +23,8 @@ pub struct VariantRow {
 /// The variant comparison, recomputed when the project changes.
 #[derive(Debug, Default)]
 pub struct Comparison {
-    key: Option<(u64, usize)>,
+    /// [`compute::project_key`] of what the rows were computed from.
+    key: Option<u64>,
     /// One row per variant, in project order.
     pub rows: Vec<VariantRow>,
 }
@@ -71,7 +73,7 @@ impl Comparison {
 
     /// Recomputes when the document changed.
     pub fn refresh(&mut self, doc: &Document) {
-        let key = (doc.revision, doc.project.variants.len());
+        let key = compute::project_key(doc);
         if self.key == Some(key) {
             return;
         }
@@ -207,6 +209,7 @@ impl Comparison {
 /// Which ingredient matters: per-gram effects, recomputed on change.
 #[derive(Debug)]
 pub struct Ranking {
+    /// [`compute::active_key`] of what the rows were computed from.
     key: Option<u64>,
     /// Ranked rows, strongest a_w lowering first, or why not.
     pub rows: Result<Vec<Sensitivity>, String>,
@@ -251,10 +254,11 @@ impl Ranking {
 
     /// Recomputes when the document changed.
     pub fn refresh(&mut self, doc: &Document) {
-        if self.key == Some(doc.revision) && self.rows.is_ok() {
+        let key = compute::active_key(doc);
+        if self.key == Some(key) && self.rows.is_ok() {
             return;
         }
-        self.key = Some(doc.revision);
+        self.key = Some(key);
         let mut ids: Vec<String> = Vec::new();
         for l in &doc.formula().lines {
             if !ids.contains(&l.ingredient) {

@@ -8,7 +8,8 @@ use colligo_core::quantity::{AmountUnit, parse_number, trim_float};
 use colligo_core::water::T_ZERO_C;
 use egui::{RichText, TextEdit};
 
-use crate::app::commands::{Command, Edit};
+use crate::app::commands::{Action, Command, Edit};
+use crate::app::compute;
 use crate::app::document::Document;
 use crate::app::panels::{Panel, View};
 use crate::app::theme;
@@ -66,7 +67,18 @@ pub struct Answer {
     pub warnings: Vec<String>,
 }
 
-/// The goal-seek dialog.
+/// What the last "Find amount" gave, and for which inputs.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Solved {
+    /// [`compute::active_key`] of the document when it was found: the
+    /// formula, conditions, model and library it holds for.
+    pub inputs: u64,
+    /// The answer, or why there is none.
+    pub outcome: Result<Answer, String>,
+}
+
+/// The goal-seek dialog. Its state belongs to one document: the app
+/// replaces it with a fresh one whenever the document is replaced.
 #[derive(Debug, Default)]
 pub struct GoalDialog {
     /// Whether the dialog is open.
@@ -77,8 +89,10 @@ pub struct GoalDialog {
     pub kind: TargetKind,
     /// Target value as typed.
     pub value: String,
-    /// The last answer or why there is none.
-    pub result: Option<Result<Answer, String>>,
+    /// The last answer or why there is none. It is shown, and can be
+    /// applied, only while the document still has the inputs it was found
+    /// for.
+    pub result: Option<Solved>,
 }
 
 impl Panel for GoalDialog {
@@ -113,7 +127,18 @@ impl GoalDialog {
 
     /// Computes the amount for the current settings.
     pub fn solve(&mut self, doc: &Document) {
-        self.result = Some(self.compute(doc));
+        self.result = Some(Solved {
+            inputs: compute::active_key(doc),
+            outcome: self.compute(doc),
+        });
+    }
+
+    /// The last result if it was found for the document as it is now.
+    pub fn current_result(&self, doc: &Document) -> Option<&Result<Answer, String>> {
+        self.result
+            .as_ref()
+            .filter(|s| s.inputs == compute::active_key(doc))
+            .map(|s| &s.outcome)
     }
 
     fn target(&self, doc: &Document) -> Result<Target, String> {
@@ -274,11 +299,27 @@ impl GoalDialog {
                     );
                 }
                 ui.horizontal(|ui| {
-                    if ui.button("Find amount").clicked() {
-                        self.solve(doc);
+                    let find = Action::FindAmount;
+                    if ui
+                        .button(find.label())
+                        .on_hover_text(find.tooltip())
+                        .clicked()
+                    {
+                        // The app writes unsaved work first, then solves.
+                        out.push(find.into());
                     }
                 });
-                match &self.result {
+                let stale = self.result.is_some() && self.current_result(doc).is_none();
+                if stale {
+                    ui.label(
+                        RichText::new(
+                            "The formula or the conditions changed since the last answer: find it again.",
+                        )
+                        .color(theme::WARN),
+                    );
+                }
+                let mut close = false;
+                match self.current_result(doc) {
                     None => {}
                     Some(Err(e)) => {
                         ui.label(RichText::new(e).color(theme::ERROR));
@@ -308,13 +349,16 @@ impl GoalDialog {
                         ui.horizontal(|ui| {
                             if ui.button("Apply to the formula").clicked() {
                                 out.push(Self::apply_command(doc, a));
-                                self.open = false;
+                                close = true;
                             }
                             if ui.button("Close").clicked() {
-                                self.open = false;
+                                close = true;
                             }
                         });
                     }
+                }
+                if close {
+                    self.open = false;
                 }
                 ui.label(
                     RichText::new(
