@@ -364,6 +364,21 @@ impl Project {
                         ),
                     ));
                 }
+                if line
+                    .amount()
+                    .kg()
+                    .is_some_and(|kg| kg > crate::formula::MAX_LINE_KG)
+                {
+                    return Err(invalid(
+                        format!("variants[{vi}].lines[{li}].amount"),
+                        format!(
+                            "{} {} is above the largest a line may hold ({} kg)",
+                            crate::error::short(line.amount),
+                            line.unit.symbol(),
+                            crate::error::short(crate::formula::MAX_LINE_KG)
+                        ),
+                    ));
+                }
                 if line.unit == AmountUnit::Percent && line.amount >= 100.0 {
                     return Err(invalid(
                         format!("variants[{vi}].lines[{li}].amount"),

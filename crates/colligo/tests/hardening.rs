@@ -103,6 +103,24 @@ fn cosolvent(a12: &str, v_solute: &str, v_water: &str) -> String {
     )
 }
 
+fn salt(hydrate_water: &str) -> String {
+    format!(
+        r#"(
+            id: "my_salt",
+            name: "My salt",
+            category: Salt,
+            molar_mass_g_per_mol: 58.44,
+            molar_mass_source: (key: "own", tag: Mem),
+            kind: Electrolyte(ions: [(ion: "Na+", count: 1), (ion: "Cl-", count: 1)]),
+            solubility: (
+                g_per_100g_water: ([(-21.1, 30.4), (0.1, 35.6), (100.0, 39.0)]),
+                on_freezing: Crystallises(hydrate_water: {hydrate_water}),
+                source: (key: "own", tag: Mem),
+            ),
+        )"#
+    )
+}
+
 const POLYOL_LINE: &str = r#"(ingredient: "my_polyol", amount: 20.0, unit: g),"#;
 const ALCOHOL_LINE: &str = r#"(ingredient: "my_alcohol", amount: 10.0, unit: g),"#;
 
@@ -132,6 +150,17 @@ fn user_records_out_of_range_are_refused_with_the_field_path() {
     json(&colligo(&[
         "eval",
         alcohol.to_str().unwrap_or_default(),
+        "--json",
+    ]));
+    let good_salt = project(
+        "salt",
+        &salt("2.0"),
+        "",
+        r#"(ingredient: "my_salt", amount: 3.0, unit: g),"#,
+    );
+    json(&colligo(&[
+        "freeze",
+        good_salt.to_str().unwrap_or_default(),
         "--json",
     ]));
 
@@ -229,6 +258,58 @@ fn user_records_out_of_range_are_refused_with_the_field_path() {
                 ALCOHOL_LINE,
             ),
             "user_solutes[0].kind.wilson.a12_j_per_mol",
+        ),
+        // Found by tests/loader_fuzz.rs: a Wilson energy that passes its
+        // coefficient check but is absurd somewhere in −60 to 200 °C made
+        // Λ infinite and the co-solvent's share of ln a_w NaN.
+        (
+            "Wilson energy reference temperature of 1.2e8 K",
+            project(
+                "wilson_t_ref",
+                &cosolvent(
+                    "Taylor(t_ref_k: 123456789.123, value: 367.3, d1: 1.16)",
+                    "58.6",
+                    "18.07",
+                ),
+                "",
+                ALCOHOL_LINE,
+            ),
+            "user_solutes[0].kind.wilson.a12_j_per_mol",
+        ),
+        (
+            "Wilson energy of -1e308 J/mol",
+            project(
+                "wilson_huge",
+                &cosolvent("Constant(367.0)", "58.6", "18.07").replace(
+                    "a21_j_per_mol: Constant(2900.0)",
+                    "a21_j_per_mol: Constant(-1e308)",
+                ),
+                "",
+                ALCOHOL_LINE,
+            ),
+            "user_solutes[0].kind.wilson.a21_j_per_mol",
+        ),
+        // Found by tests/loader_fuzz.rs: hydrate water of -inf gave a NaN
+        // hydrate share in the freezing curve.
+        (
+            "hydrate water of -inf",
+            project(
+                "hydrate_inf",
+                &salt("-inf"),
+                "",
+                r#"(ingredient: "my_salt", amount: 3.0, unit: g),"#,
+            ),
+            "user_solutes[0].solubility.on_freezing.hydrate_water",
+        ),
+        (
+            "hydrate water of 1e6",
+            project(
+                "hydrate_huge",
+                &salt("1e6"),
+                "",
+                r#"(ingredient: "my_salt", amount: 3.0, unit: g),"#,
+            ),
+            "user_solutes[0].solubility.on_freezing.hydrate_water",
         ),
         (
             "an ingredient's molar mass override of 1e-320",
@@ -762,4 +843,83 @@ fn huge_and_odd_numbers_in_options_print_short() {
             &text[..text.len().min(600)]
         );
     }
+}
+
+/// A trace of a solute that never crystallises (here ethanol, 1e-9 g)
+/// once made the freezing curve fail below the salt's eutectic: the liquid
+/// it keeps is less than the 1e-6 of the water the ice solve looks at, and
+/// the solve found no sign change (found by tests/loader_fuzz.rs). A trace
+/// changes nothing: the curve is that of the salt brine alone, to 1e-4.
+#[test]
+fn a_trace_of_cosolvent_does_not_break_the_freezing_curve() {
+    let curve = |mix: &str, model: &str| {
+        let v = json(&colligo(&[
+            "freeze", "--mix", mix, "--model", model, "--json",
+        ]));
+        v["points"]
+            .as_array()
+            .map(|pts| {
+                pts.iter()
+                    .map(|p| p["ice_fraction_of_water"].as_f64().unwrap_or(f64::NAN))
+                    .collect::<Vec<f64>>()
+            })
+            .unwrap_or_default()
+    };
+    for model in ["zsr", "pitzer", "ross"] {
+        let brine = curve("water=80g, sodium_chloride=3g", model);
+        let traced = curve("water=80g, ethanol=1e-9g, sodium_chloride=3g", model);
+        assert_eq!(brine.len(), 30, "{model}: {brine:?}");
+        assert_eq!(brine.len(), traced.len(), "{model}");
+        for (i, (a, b)) in brine.iter().zip(&traced).enumerate() {
+            assert!((a - b).abs() < 1e-4, "{model}, point {i}: {a} vs {b}");
+        }
+    }
+}
+
+/// A project may hold 1 kPa (the low end of `Limits::PRESSURE_KPA`, which
+/// the window accepts too); the evaluation refused exactly that value
+/// (found by tests/loader_fuzz.rs).
+#[test]
+fn the_lowest_pressure_a_project_may_hold_evaluates() {
+    let text = sample("pickle_brine.ron").replacen("pressure_kpa: 84.0", "pressure_kpa: 1.0", 1);
+    assert!(text.contains("pressure_kpa: 1.0"));
+    let p = scratch("low_pressure.ron", text.as_bytes());
+    let v = json(&colligo(&["eval", &path_arg(&p), "--json"]));
+    assert!(v["water_activity"].as_f64().is_some(), "{v}");
+    json(&colligo(&[
+        "eval",
+        "--mix",
+        "water=100g",
+        "--pressure",
+        "1kPa",
+        "--json",
+    ]));
+    // Below it, the refusal says so.
+    let out = colligo(&["eval", "--mix", "water=100g", "--pressure", "0.5kPa"]);
+    assert_eq!(out.status.code(), Some(1));
+    assert!(stderr(&out).contains("pressure"), "{}", stderr(&out));
+}
+
+/// A project line above `formula::MAX_LINE_KG` is refused on load with the
+/// line's path, like every other field, rather than loading and then
+/// failing to evaluate (found by tests/loader_fuzz.rs).
+#[test]
+fn a_project_line_above_the_bound_is_refused_on_load() {
+    let text = sample("pickle_brine.ron");
+    let at = text
+        .find(r#"(ingredient: "water", amount: "#)
+        .unwrap_or_else(|| panic!("no water line"));
+    let rest = &text[at..];
+    let end = rest.find(", unit").unwrap_or(0);
+    let line = &rest[..end];
+    let huge = text.replacen(line, r#"(ingredient: "water", amount: 4.0e12"#, 1);
+    let p = scratch("huge_line.ron", huge.as_bytes());
+    let out = colligo(&["eval", &path_arg(&p)]);
+    let err = stderr(&out);
+    assert_eq!(out.status.code(), Some(1), "{err}");
+    assert!(
+        err.contains(".lines[") && err.contains("].amount") && err.contains("largest a line"),
+        "{err}"
+    );
+    assert!(err.len() < 300, "{err}");
 }
