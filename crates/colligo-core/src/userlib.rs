@@ -55,7 +55,17 @@ impl UserLibrary {
             path: shown.clone(),
             message: e.to_string(),
         })?;
-        let text = without_bom(&text);
+        UserLibrary::from_ron(&text, &shown, base)
+    }
+
+    /// Parses and checks a user library from text, as [`UserLibrary::load`]
+    /// does; `path` is used in messages.
+    ///
+    /// # Errors
+    /// Parse, version and record errors naming `path`.
+    pub fn from_ron(text: &str, path: &str, base: &Library) -> Result<UserLibrary, ProjectError> {
+        let shown = path.to_string();
+        let text = without_bom(text);
         // The version first, from the parsed document: a library from a
         // newer build gets a version message, not a field error.
         if let Some(Some(found)) = read_version(text)
