@@ -36,6 +36,11 @@ use proptest::test_runner::{RngAlgorithm, TestRng};
 /// Cases per seed file in the normal test run.
 const DEFAULT_CASES_PER_SEED: usize = 2000;
 
+/// A molality above which the core may refuse a formula as outside what
+/// the models can represent (`ModelError::NotUsable`): a thousand times
+/// the most concentrated solution the library's data cover.
+const WATER_STARVED_MOL_PER_KG: f64 = 1.0e4;
+
 /// No mutated input is longer than this (the seeds are a few kB).
 const MAX_INPUT_BYTES: usize = 64 * 1024;
 
@@ -515,8 +520,9 @@ fn evaluate_formula(
     };
     // The states a loaded project may hold and the command line reports as
     // an error: a variant without water, or percentages leaving nothing for
-    // the weighed lines (a draft). Any other error after loading is a
-    // defect: the loader let through what the evaluation cannot use.
+    // the weighed lines (a draft), and (below) a formula with almost no
+    // water. Any other error after loading is a defect: the loader let
+    // through what the evaluation cannot use.
     let comp = match formula.composition(lib) {
         Ok(c) => c,
         Err(e @ FormulaError::PercentOverflow { .. }) => {
@@ -526,10 +532,24 @@ fn evaluate_formula(
         Err(e) => return Err(Bad::Refused(e.to_string())),
     };
     tally.evaluations += 1;
+    // A formula with almost no water (1e-300 g against grams of solute)
+    // lies so far outside every model that the core refuses it with
+    // `ModelError::NotUsable` rather than print a_w = 0 or NaN: that typed
+    // refusal is the answer there, and only there.
+    let max_molality = comp
+        .solutes
+        .iter()
+        .map(|s| s.mol / comp.water_kg)
+        .fold(0.0, f64::max);
+    let water_starved = max_molality.is_nan() || max_molality > WATER_STARVED_MOL_PER_KG;
     match properties::evaluate(lib, &comp, model, cond, Wanted::ALL) {
         Ok(p) => check_properties(&p)?,
         Err(ModelError::NoWater) => {
             refuse(tally, ModelError::NoWater.to_string());
+            return Ok(());
+        }
+        Err(e @ ModelError::NotUsable { .. }) if water_starved => {
+            refuse(tally, format!("(over 1e4 mol/kg) {e}"));
             return Ok(());
         }
         Err(e) => return Err(Bad::Refused(e.to_string())),
