@@ -1,13 +1,89 @@
 //! Typed errors of the computation core.
 
+use std::borrow::Cow;
+
 use thiserror::Error;
+
+/// Text a user wrote that is longer than this many characters is shortened
+/// in messages ([`elide`]); no id, unit or number is this long.
+pub const MAX_SHOWN_CHARS: usize = 64;
+
+/// How many characters of a shortened text a message keeps.
+const KEPT_CHARS: usize = 40;
+
+/// Text a user wrote (an id, an amount, a field name), for a message: as
+/// written up to [`MAX_SHOWN_CHARS`] characters, else its first 40
+/// characters, `…` and its length, so that a megabyte typed by mistake
+/// gives a one-line message.
+pub fn elide(text: &str) -> Cow<'_, str> {
+    match text.char_indices().nth(MAX_SHOWN_CHARS) {
+        None => Cow::Borrowed(text),
+        Some(_) => {
+            let cut = text
+                .char_indices()
+                .nth(KEPT_CHARS)
+                .map_or(text.len(), |(i, _)| i);
+            Cow::Owned(format!(
+                "{}… ({} characters)",
+                &text[..cut],
+                text.chars().count()
+            ))
+        }
+    }
+}
+
+/// A whole message from elsewhere (a parser's, a library's) with every run
+/// of more than [`MAX_SHOWN_CHARS`] characters without a space shortened as
+/// [`elide`] does.
+pub fn elide_words(message: &str) -> Cow<'_, str> {
+    let long = |w: &str| w.char_indices().nth(MAX_SHOWN_CHARS).is_some();
+    if !message.split_whitespace().any(long) {
+        return Cow::Borrowed(message);
+    }
+    let mut out = String::with_capacity(256);
+    let mut rest = message;
+    while !rest.is_empty() {
+        let start = rest
+            .find(|c: char| !c.is_whitespace())
+            .unwrap_or(rest.len());
+        out.push_str(&rest[..start]);
+        rest = &rest[start..];
+        let end = rest.find(char::is_whitespace).unwrap_or(rest.len());
+        let word = &rest[..end];
+        // A quoted word keeps its quotes around the shortened text.
+        let quotes = ['\'', '`', '"'];
+        match word.chars().next() {
+            Some(open) if quotes.contains(&open) && word.len() > 2 => {
+                let inner = &word[open.len_utf8()..];
+                let (inner, tail) = match inner.rfind(quotes) {
+                    Some(i) if i > 0 => inner.split_at(i),
+                    _ => (inner, ""),
+                };
+                out.push(open);
+                out.push_str(&elide(inner));
+                out.push_str(tail);
+            }
+            _ => out.push_str(&elide(word)),
+        }
+        rest = &rest[end..];
+    }
+    Cow::Owned(out)
+}
+
+/// A number for a message that must keep its exact value: Rust's shortest
+/// round-trip form (`0.85`, `-18`), or in scientific notation when that
+/// would be long (`1e308` rather than 309 digits).
+pub fn compact(v: f64) -> String {
+    let s = v.to_string();
+    if s.len() > 20 { format!("{v:e}") } else { s }
+}
 
 /// Problems in library data (built-in assets or a user library file).
 #[derive(Debug, Clone, PartialEq, Error)]
 #[non_exhaustive]
 pub enum LibraryError {
     /// A file could not be parsed.
-    #[error("cannot read {file}: {message}")]
+    #[error("cannot read {file}: {}", elide_words(.message))]
     Parse {
         /// File name.
         file: String,
@@ -15,7 +91,7 @@ pub enum LibraryError {
         message: String,
     },
     /// Two entries share an id.
-    #[error("duplicate {what} id `{id}`")]
+    #[error("duplicate {what} id `{}`", elide(.id))]
     Duplicate {
         /// What kind of entry.
         what: &'static str,
@@ -23,7 +99,7 @@ pub enum LibraryError {
         id: String,
     },
     /// An entry is inconsistent.
-    #[error("`{id}`: {message}")]
+    #[error("`{}`: {message}", elide(.id))]
     Invalid {
         /// The entry.
         id: String,
@@ -31,7 +107,7 @@ pub enum LibraryError {
         message: String,
     },
     /// A field of an entry holds a value outside what the models can use.
-    #[error("`{id}`: {field}: {problem}")]
+    #[error("`{}`: {field}: {problem}", elide(.id))]
     Field {
         /// The entry.
         id: String,
@@ -41,7 +117,7 @@ pub enum LibraryError {
         problem: FieldProblem,
     },
     /// A correlation or table of an entry has bad coefficients.
-    #[error("`{id}`: {field}: {source}")]
+    #[error("`{}`: {field}: {source}", elide(.id))]
     Correlation {
         /// The entry.
         id: String,
@@ -51,7 +127,7 @@ pub enum LibraryError {
         source: crate::correlations::CorrelationError,
     },
     /// A citation names a key missing from the bibliography.
-    #[error("`{owner}` cites unknown source `{key}`")]
+    #[error("`{}` cites unknown source `{}`", elide(.owner), elide(.key))]
     UnknownSource {
         /// The key.
         key: String,
@@ -59,7 +135,7 @@ pub enum LibraryError {
         owner: String,
     },
     /// An ingredient id is unknown.
-    #[error("unknown ingredient `{id}`{}", suggest_text(.suggestions))]
+    #[error("unknown ingredient `{}`{}", elide(.id), suggest_text(.suggestions))]
     UnknownIngredient {
         /// What was asked for.
         id: String,
@@ -96,7 +172,7 @@ impl LibraryError {
     /// themselves (a project's `user_solutes[0].norrish.k`).
     pub fn detail(&self) -> String {
         match self {
-            LibraryError::Field { id, problem, .. } => format!("`{id}`: {problem}"),
+            LibraryError::Field { id, problem, .. } => format!("`{}`: {problem}", elide(id)),
             e => e.to_string(),
         }
     }
@@ -107,7 +183,7 @@ impl LibraryError {
 #[non_exhaustive]
 pub enum FieldProblem {
     /// Not a finite number (NaN or an infinity; RON reads 1e309 as infinity).
-    #[error("{value} is not a finite number")]
+    #[error("{} is not a finite number", short(*.value))]
     NotFinite {
         /// The value.
         value: f64,
@@ -123,7 +199,7 @@ pub enum FieldProblem {
         max: f64,
     },
     /// A range whose low end is not below its high end.
-    #[error("the range {lo} to {hi} is empty")]
+    #[error("the range {} to {} is empty", short(*.lo), short(*.hi))]
     EmptyRange {
         /// Low end.
         lo: f64,
@@ -132,7 +208,7 @@ pub enum FieldProblem {
     },
     /// A Norrish constant so negative that a_w would rise with solute.
     #[error(
-        "K = {k} would make a_w rise as solute is added within the data (it must be at least {k_min:.3} for this max_mole_fraction)"
+        "K = {} would make a_w rise as solute is added within the data (it must be at least {k_min:.3} for this max_mole_fraction)", short(*.k)
     )]
     RaisesWaterActivity {
         /// K at an end of its temperature range.
@@ -165,7 +241,7 @@ pub fn short(v: f64) -> String {
 #[non_exhaustive]
 pub enum SolverError {
     /// The function has the same sign at both ends of the interval.
-    #[error("no sign change between {lo} and {hi} (f = {f_lo:.3e} and {f_hi:.3e})")]
+    #[error("no sign change between {} and {} (f = {f_lo:.3e} and {f_hi:.3e})", short(*.lo), short(*.hi))]
     NoBracket {
         /// Lower end.
         lo: f64,
@@ -177,7 +253,7 @@ pub enum SolverError {
         f_hi: f64,
     },
     /// The iteration limit was reached.
-    #[error("not converged after {iterations} iterations (x = {x}, f = {f:.3e})")]
+    #[error("not converged after {iterations} iterations (x = {}, f = {f:.3e})", short(*.x))]
     NotConverged {
         /// Iterations done.
         iterations: usize,
@@ -195,7 +271,7 @@ pub enum SolverError {
         hi: f64,
     },
     /// The function returned NaN or an infinity.
-    #[error("the function is not finite at x = {x}")]
+    #[error("the function is not finite at x = {}", short(*.x))]
     NonFinite {
         /// Where.
         x: f64,
@@ -248,7 +324,7 @@ pub enum ModelError {
         min_c: f64,
     },
     /// The solution does not boil below the hottest temperature searched.
-    #[error("the solution does not boil below {max_c:.0} °C at this pressure")]
+    #[error("the solution does not boil below {} °C at this pressure", short(*.max_c))]
     NoBoilingPoint {
         /// Hottest temperature searched, °C.
         max_c: f64,
@@ -269,7 +345,7 @@ pub enum FormulaError {
     #[error(transparent)]
     Library(#[from] LibraryError),
     /// An amount could not be read.
-    #[error("cannot read amount `{text}`: {reason}")]
+    #[error("cannot read amount `{}`: {reason}", elide(.text))]
     BadAmount {
         /// What was typed.
         text: String,
@@ -277,7 +353,7 @@ pub enum FormulaError {
         reason: String,
     },
     /// A negative or non-finite amount.
-    #[error("amount of `{ingredient}` must be a finite number ≥ 0, got {}", short(*.value))]
+    #[error("amount of `{}` must be a finite number ≥ 0, got {}", elide(.ingredient), short(*.value))]
     NegativeAmount {
         /// Ingredient id.
         ingredient: String,
@@ -286,7 +362,8 @@ pub enum FormulaError {
     },
     /// A line heavier than any batch can be.
     #[error(
-        "amount of `{ingredient}` is {} kg, above the largest a line may hold ({} kg)",
+        "amount of `{}` is {} kg, above the largest a line may hold ({} kg)",
+        elide(.ingredient),
         short(*.kg),
         short(*.max_kg)
     )]
@@ -300,14 +377,14 @@ pub enum FormulaError {
     },
     /// Percentages of batch add up to 100 % or more.
     #[error(
-        "percentages of batch add up to {total:.1} %, leaving nothing for the weighed ingredients"
+        "percentages of batch add up to {} %, leaving nothing for the weighed ingredients", short(*.total)
     )]
     PercentOverflow {
         /// Sum of percentages.
         total: f64,
     },
     /// A mix specification could not be parsed.
-    #[error("cannot read `{text}`: {reason}")]
+    #[error("cannot read `{}`: {reason}", elide(.text))]
     BadMix {
         /// The offending part.
         text: String,
@@ -315,7 +392,7 @@ pub enum FormulaError {
         reason: String,
     },
     /// A temperature or pressure could not be read.
-    #[error("cannot read {what} `{text}`: {reason}")]
+    #[error("cannot read {what} `{}`: {reason}", elide(.text))]
     BadQuantity {
         /// Temperature, pressure…
         what: &'static str,
@@ -331,7 +408,7 @@ pub enum FormulaError {
 #[non_exhaustive]
 pub enum ProjectError {
     /// The file is not valid RON or does not match the format.
-    #[error("{path}: not a readable Colligo project: {message}")]
+    #[error("{path}: not a readable Colligo project: {}", elide_words(.message))]
     Parse {
         /// File path.
         path: String,
@@ -375,9 +452,45 @@ pub enum ProjectError {
 #[non_exhaustive]
 pub enum ParseError {
     /// Not a model id.
-    #[error("unknown model `{text}` (choose auto, ideal, norrish, ross, zsr or pitzer)")]
+    #[error("unknown model `{}` (choose auto, ideal, norrish, ross, zsr or pitzer)", elide(.text))]
     UnknownModel {
         /// What was given.
         text: String,
     },
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn long_texts_are_shortened_with_their_length() {
+        assert_eq!(elide("sucrose"), "sucrose");
+        let long = "x".repeat(1_000_000);
+        let e = elide(&long);
+        assert!(
+            e.starts_with(&"x".repeat(40)) && e.ends_with("… (1000000 characters)"),
+            "{e}"
+        );
+        assert!(e.len() < 80);
+        // Characters, not bytes: no cut inside a UTF-8 sequence.
+        let accents = "é".repeat(100);
+        assert!(elide(&accents).ends_with("(100 characters)"));
+        let msg = format!("invalid value '{long}' for '--model <MODEL>'");
+        let short_msg = elide_words(&msg);
+        assert!(short_msg.starts_with("invalid value 'xxx"), "{short_msg}");
+        assert!(
+            short_msg.contains("characters)' for '--model <MODEL>'"),
+            "{short_msg}"
+        );
+        assert_eq!(elide_words("a short message"), "a short message");
+    }
+
+    #[test]
+    fn compact_numbers_keep_their_value() {
+        assert_eq!(compact(0.85), "0.85");
+        assert_eq!(compact(-18.0), "-18");
+        assert_eq!(compact(1e308), "1e308");
+        assert_eq!(compact(1e308).parse::<f64>(), Ok(1e308));
+    }
 }

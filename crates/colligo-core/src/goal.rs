@@ -4,7 +4,7 @@
 use std::fmt;
 use std::str::FromStr;
 
-use crate::error::{FormulaError, ModelError};
+use crate::error::{FormulaError, ModelError, compact, elide};
 use crate::formula::Formula;
 use crate::keys::ScalarKey;
 use crate::library::Library;
@@ -123,13 +123,18 @@ impl fmt::Display for Target {
         let key = self.key();
         match self {
             Target::WaterActivity(v) | Target::ErhPercent(v) | Target::FreezingPointC(v) => {
-                write!(f, "{key}={v}")
+                write!(f, "{key}={}", compact(*v))
             }
             Target::IceFraction {
                 fraction,
                 storage_k,
             } => {
-                write!(f, "{key}@{}C={fraction}", storage_k - T_ZERO_C)
+                write!(
+                    f,
+                    "{key}@{}C={}",
+                    compact(storage_k - T_ZERO_C),
+                    compact(*fraction)
+                )
             }
         }
     }
@@ -175,20 +180,21 @@ impl FromStr for Target {
 #[non_exhaustive]
 pub enum TargetError {
     /// No `=value`.
-    #[error("`{text}`: expected property=value, e.g. water_activity=0.85")]
+    #[error("`{}`: expected property=value, e.g. water_activity=0.85", elide(.text))]
     NoValue {
         /// What was given.
         text: String,
     },
     /// The value is not a number.
-    #[error("`{text}` is not a number")]
+    #[error("`{}` is not a number", elide(.text))]
     NotANumber {
         /// What was given.
         text: String,
     },
     /// Not a property a target can be set on.
     #[error(
-        "unknown target `{key}` (use water_activity, erh_percent, freezing_point_c or ice_fraction_of_water@T)"
+        "unknown target `{}` (use water_activity, erh_percent, freezing_point_c or ice_fraction_of_water@T)",
+        elide(.key)
     )]
     UnknownKey {
         /// The key given.
@@ -216,7 +222,7 @@ pub enum GoalError {
     #[error(transparent)]
     Model(#[from] ModelError),
     /// The target cannot be reached by changing this ingredient.
-    #[error("{target} cannot be reached with {ingredient}: {reason}")]
+    #[error("{target} cannot be reached with {}: {reason}", elide(.ingredient))]
     Unreachable {
         /// The target.
         target: String,

@@ -114,7 +114,7 @@ impl fmt::Display for ScalarKey {
 
 /// A name that is not a [`ScalarKey`].
 #[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
-#[error("unknown property `{key}` (choose from {})", accepted())]
+#[error("unknown property `{}` (choose from {})", crate::error::elide(.key), accepted())]
 pub struct UnknownKey {
     /// The name given.
     pub key: String,

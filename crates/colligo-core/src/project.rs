@@ -135,17 +135,33 @@ impl Default for Project {
     }
 }
 
-/// The `format_version` number written in a project text, found before a
-/// full parse so that a file from a newer build gets a clear message
-/// rather than a field error.
-fn peek_version(text: &str) -> Option<u32> {
-    let i = text.find("format_version")?;
-    let rest = text[i + "format_version".len()..]
-        .trim_start()
-        .strip_prefix(':')?
-        .trim_start();
-    let digits: String = rest.chars().take_while(char::is_ascii_digit).collect();
-    digits.parse().ok()
+/// A text without the UTF-8 byte-order mark some editors write at its
+/// start (it is not part of the RON, CSV or JSON it holds).
+pub fn without_bom(text: &str) -> &str {
+    text.strip_prefix('\u{feff}').unwrap_or(text)
+}
+
+/// Only the `format_version` field of a document; every other field is
+/// skipped unread, so a file from a newer build (with fields this build
+/// does not know) still gives its version.
+#[derive(Deserialize)]
+struct VersionOnly {
+    format_version: Option<u32>,
+}
+
+/// The `format_version` of a RON document, read from the parsed document
+/// (comments and strings that mention a version are not it). `None` when
+/// the text is not a RON struct at all; the full parse then says why.
+pub(crate) fn read_version(text: &str) -> Option<Option<u32>> {
+    ron_options()
+        .from_str::<VersionOnly>(text)
+        .ok()
+        .map(|v| v.format_version)
+}
+
+/// The RON options every Colligo document is read with.
+pub(crate) fn ron_options() -> ron::Options {
+    ron::Options::default().with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
 }
 
 impl Project {
@@ -154,17 +170,16 @@ impl Project {
     /// # Errors
     /// [`ProjectError`] naming the path and the problem.
     pub fn from_ron(text: &str, path: &str, lib: &Library) -> Result<Project, ProjectError> {
-        let opts = ron::Options::default()
-            .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME);
-        match peek_version(text) {
-            Some(found) if found > FORMAT_VERSION || found == 0 => {
+        let text = without_bom(text);
+        match read_version(text) {
+            Some(Some(found)) if found != FORMAT_VERSION => {
                 return Err(ProjectError::Version {
                     path: path.into(),
                     found,
                     supported: FORMAT_VERSION,
                 });
             }
-            None => {
+            Some(None) => {
                 return Err(ProjectError::Invalid {
                     path: path.into(),
                     field: "format_version".into(),
@@ -173,10 +188,12 @@ impl Project {
             }
             _ => {}
         }
-        let p: Project = opts.from_str(text).map_err(|e| ProjectError::Parse {
-            path: path.into(),
-            message: e.to_string(),
-        })?;
+        let p: Project = ron_options()
+            .from_str(text)
+            .map_err(|e| ProjectError::Parse {
+                path: path.into(),
+                message: e.to_string(),
+            })?;
         p.validate(path, lib)?;
         Ok(p)
     }
@@ -291,7 +308,8 @@ impl Project {
                 return Err(invalid(
                     field.into(),
                     format!(
-                        "{v} {unit} is outside {} to {} {unit}",
+                        "{} {unit} is outside {} to {} {unit}",
+                        crate::error::short(v),
                         crate::error::signed(range.0),
                         crate::error::signed(range.1)
                     ),
@@ -325,7 +343,7 @@ impl Project {
             if !names.insert(v.name.as_str()) {
                 return Err(invalid(
                     format!("variants[{vi}].name"),
-                    format!("duplicate variant name `{}`", v.name),
+                    format!("duplicate variant name `{}`", crate::error::elide(&v.name)),
                 ));
             }
             for (li, line) in v.lines.iter().enumerate() {
@@ -340,7 +358,25 @@ impl Project {
                 if !(line.amount.is_finite() && line.amount >= 0.0) {
                     return Err(invalid(
                         format!("variants[{vi}].lines[{li}].amount"),
-                        format!("{} is not a finite amount ≥ 0", line.amount),
+                        format!(
+                            "{} is not a finite amount ≥ 0",
+                            crate::error::short(line.amount)
+                        ),
+                    ));
+                }
+                if line
+                    .amount()
+                    .kg()
+                    .is_some_and(|kg| kg > crate::formula::MAX_LINE_KG)
+                {
+                    return Err(invalid(
+                        format!("variants[{vi}].lines[{li}].amount"),
+                        format!(
+                            "{} {} is above the largest a line may hold ({} kg)",
+                            crate::error::short(line.amount),
+                            line.unit.symbol(),
+                            crate::error::short(crate::formula::MAX_LINE_KG)
+                        ),
                     ));
                 }
                 if line.unit == AmountUnit::Percent && line.amount >= 100.0 {

@@ -156,8 +156,13 @@ pub fn show_value(v: f64, decimals: usize, trim: bool, symbol: &str) -> String {
 
 /// `v` with `decimals` decimals, never a negative zero: a value that
 /// rounds to zero prints `0.00`, not `-0.00`. Non-finite values print as
-/// Rust prints them (callers show a dash for a missing value).
+/// Rust prints them (callers show a dash for a missing value); magnitudes
+/// from 1e15 up in scientific notation ([`crate::error::short`]).
 pub fn fixed(v: f64, decimals: usize) -> String {
+    if v.abs() >= 1e15 {
+        // Fixed notation would print every digit of 1e308.
+        return crate::error::short(v);
+    }
     let s = format!("{v:.decimals$}");
     match s.strip_prefix('-') {
         Some(rest) if rest.bytes().all(|b| b == b'0' || b == b'.') => rest.to_string(),

@@ -15,7 +15,7 @@ use serde::{Deserialize, Serialize};
 
 use crate::error::{LibraryError, ProjectError};
 use crate::library::{IngredientRecord, Library, SoluteRecord};
-use crate::project::write_atomic;
+use crate::project::{read_version, ron_options, without_bom, write_atomic};
 
 /// The newest user-library format this build reads and writes.
 pub const USER_LIBRARY_VERSION: u32 = 1;
@@ -55,12 +55,34 @@ impl UserLibrary {
             path: shown.clone(),
             message: e.to_string(),
         })?;
-        let opts = ron::Options::default()
-            .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME);
-        let lib: UserLibrary = opts.from_str(&text).map_err(|e| ProjectError::Parse {
-            path: shown.clone(),
-            message: e.to_string(),
-        })?;
+        UserLibrary::from_ron(&text, &shown, base)
+    }
+
+    /// Parses and checks a user library from text, as [`UserLibrary::load`]
+    /// does; `path` is used in messages.
+    ///
+    /// # Errors
+    /// Parse, version and record errors naming `path`.
+    pub fn from_ron(text: &str, path: &str, base: &Library) -> Result<UserLibrary, ProjectError> {
+        let shown = path.to_string();
+        let text = without_bom(text);
+        // The version first, from the parsed document: a library from a
+        // newer build gets a version message, not a field error.
+        if let Some(Some(found)) = read_version(text)
+            && found != USER_LIBRARY_VERSION
+        {
+            return Err(ProjectError::Version {
+                path: shown,
+                found,
+                supported: USER_LIBRARY_VERSION,
+            });
+        }
+        let lib: UserLibrary = ron_options()
+            .from_str(text)
+            .map_err(|e| ProjectError::Parse {
+                path: shown.clone(),
+                message: e.to_string(),
+            })?;
         if lib.format_version != USER_LIBRARY_VERSION {
             return Err(ProjectError::Version {
                 path: shown,
@@ -108,5 +130,47 @@ impl UserLibrary {
             )
             .as_bytes(),
         )
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn write(name: &str, text: &str) -> std::path::PathBuf {
+        let dir = std::env::temp_dir().join(format!("colligo-userlib-{}", std::process::id()));
+        std::fs::create_dir_all(&dir).unwrap_or_else(|e| panic!("{e}"));
+        let p = dir.join(name);
+        std::fs::write(&p, text).unwrap_or_else(|e| panic!("{e}"));
+        p
+    }
+
+    const SYRUP: &str = r#"(id: "my_syrup", name: "My syrup", category: Sweetener,
+        water_g_per_100g: 20.0, solutes: [(solute: "sucrose", g_per_100g: 80.0)],
+        source: (key: "own", tag: Mem))"#;
+
+    /// A byte-order mark and a comment naming another version are not the
+    /// document; the `format_version` field is.
+    #[test]
+    fn byte_order_mark_and_version_comments_are_not_the_document() {
+        let lib = Library::builtin().unwrap_or_else(|e| panic!("{e}"));
+        let body = format!("(format_version: 1, ingredients: [{SYRUP}])");
+        for (name, text) in [
+            ("bom.ron", format!("\u{feff}{body}")),
+            ("comment.ron", format!("// format_version: 3\n{body}")),
+        ] {
+            let ul = UserLibrary::load(&write(name, &text), &lib);
+            assert!(
+                ul.as_ref().is_ok_and(|u| u.ingredients.len() == 1),
+                "{name}: {ul:?}"
+            );
+        }
+        // A newer library with a field this build does not know is told
+        // apart by its version, not by the field.
+        let newer = format!("(format_version: 2, shelf: \"top\", ingredients: [{SYRUP}])");
+        match UserLibrary::load(&write("newer.ron", &newer), &lib) {
+            Err(ProjectError::Version { found: 2, .. }) => {}
+            other => panic!("{other:?}"),
+        }
     }
 }

@@ -5,6 +5,7 @@
 use std::process::ExitCode;
 
 use colligo::{app, cli};
+use colligo_core::error::elide_words;
 
 fn main() -> ExitCode {
     let command = match cli::parse(std::env::args_os()) {
@@ -20,7 +21,15 @@ fn main() -> ExitCode {
         }
         // Usage errors exit 2; --help and --version print and exit 0.
         Err(e) => {
-            let _ = e.print();
+            // clap's message repeats the value it refused: shorten a very
+            // long one (the styled print is kept for everything else).
+            let text = e.render().to_string();
+            match elide_words(&text) {
+                std::borrow::Cow::Owned(short) if e.use_stderr() => eprint!("{short}"),
+                _ => {
+                    let _ = e.print();
+                }
+            }
             return ExitCode::from(u8::try_from(e.exit_code()).unwrap_or(2));
         }
     };
@@ -38,7 +47,13 @@ fn main() -> ExitCode {
             ExitCode::SUCCESS
         }
         Err(e) => {
-            eprintln!("colligo {}: {e:#}", command.name());
+            // The last guard: a message from elsewhere (a parser's) may
+            // still quote a very long text.
+            eprintln!(
+                "colligo {}: {}",
+                command.name(),
+                elide_words(&format!("{e:#}"))
+            );
             ExitCode::from(1)
         }
     }

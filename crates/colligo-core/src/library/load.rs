@@ -3,7 +3,7 @@
 //! compositions) before it is indexed.
 
 use super::*;
-use crate::error::LibraryError;
+use crate::error::{LibraryError, MAX_SHOWN_CHARS, elide, short};
 
 fn parse<T: serde::de::DeserializeOwned>(file: &str, text: &str) -> Result<T, LibraryError> {
     ron::from_str(text).map_err(|e| LibraryError::Parse {
@@ -79,7 +79,10 @@ impl Library {
                 if !(0.0..=1.0).contains(&t.water_activity) {
                     return Err(LibraryError::Invalid {
                         id: t.id,
-                        message: format!("water activity {} outside [0, 1]", t.water_activity),
+                        message: format!(
+                            "water activity {} outside [0, 1]",
+                            short(t.water_activity)
+                        ),
                     });
                 }
                 lib.thresholds.push(t);
@@ -105,7 +108,7 @@ impl Library {
             .copied()
             .ok_or_else(|| LibraryError::Invalid {
                 id: owner.to_string(),
-                message: format!("unknown ion `{id}`"),
+                message: format!("unknown ion `{}`", elide(id)),
             })
     }
 
@@ -258,7 +261,7 @@ impl Library {
             if charge.abs() > 1e-12 {
                 return Err(LibraryError::Invalid {
                     id: rec.id,
-                    message: format!("ions do not balance (net charge {charge})"),
+                    message: format!("ions do not balance (net charge {})", short(charge)),
                 });
             }
             let cations: Vec<_> = ions.iter().filter(|(i, _)| self.ions[*i].z > 0.0).collect();
@@ -370,13 +373,13 @@ impl Library {
             let Some(&i) = self.solute_index.get(&s.solute) else {
                 return Err(LibraryError::Invalid {
                     id: rec.id.clone(),
-                    message: format!("unknown solute `{}`", s.solute),
+                    message: format!("unknown solute `{}`", elide(&s.solute)),
                 });
             };
             if !(s.g_per_100g.is_finite() && s.g_per_100g >= 0.0) {
                 return Err(LibraryError::Invalid {
                     id: rec.id.clone(),
-                    message: format!("bad amount of `{}`", s.solute),
+                    message: format!("bad amount of `{}`", elide(&s.solute)),
                 });
             }
             let m = s
@@ -389,7 +392,10 @@ impl Library {
         if (total - 100.0).abs() > 0.5 {
             return Err(LibraryError::Invalid {
                 id: rec.id,
-                message: format!("composition adds up to {total:.2} g per 100 g, not 100"),
+                message: format!(
+                    "composition adds up to {} g per 100 g, not 100",
+                    short(total)
+                ),
             });
         }
         // Normalise exactly to 1 kg/kg so rounding in the sources does not
@@ -505,7 +511,17 @@ impl Library {
     }
 }
 
+/// The longest id a record may have, in characters: ids are typed in
+/// formulas and compared by edit distance in "did you mean" suggestions.
+pub const MAX_ID_CHARS: usize = MAX_SHOWN_CHARS;
+
 fn check_id(id: &str) -> Result<(), LibraryError> {
+    if id.len() > MAX_ID_CHARS {
+        return Err(LibraryError::Invalid {
+            id: id.to_string(),
+            message: format!("ids are at most {MAX_ID_CHARS} characters"),
+        });
+    }
     let ok = !id.is_empty()
         && id
             .chars()

@@ -6,7 +6,8 @@ mod load;
 pub mod records;
 mod search;
 pub mod validate;
-pub use search::{MatchKind, SearchHit};
+pub use load::MAX_ID_CHARS;
+pub use search::{MAX_QUERY_CHARS, MatchKind, SearchHit};
 
 use std::collections::HashMap;
 

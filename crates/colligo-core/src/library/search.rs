@@ -39,7 +39,12 @@ pub struct SearchHit {
 
 /// Queries longer than this are not compared by edit distance (the cost
 /// grows with the product of the lengths; no id is this long).
-const MAX_FUZZY_CHARS: usize = 64;
+const MAX_FUZZY_CHARS: usize = super::load::MAX_ID_CHARS;
+
+/// The longest query [`Library::search`] looks for, in characters: longer
+/// than any name, synonym or category (each query is compared with every
+/// ingredient's texts, so its length multiplies the work).
+pub const MAX_QUERY_CHARS: usize = 200;
 
 /// The words of `s`, lower-cased, joined by single spaces and padded with
 /// one space at each end, so that `" salt "` finds the whole word.
@@ -57,11 +62,14 @@ impl Library {
     /// whole-word matches of names and synonyms first, then prefixes,
     /// substrings, synonyms and categories; shorter names first within a
     /// kind. Empty for an empty query.
+    /// A query longer than [`MAX_QUERY_CHARS`] matches nothing (no name is
+    /// that long), so a pasted megabyte costs no search.
     pub fn search(&self, query: &str, limit: usize) -> Vec<SearchHit> {
-        let q = query.trim().to_lowercase();
-        if q.is_empty() {
+        let query = query.trim();
+        if query.is_empty() || query.char_indices().nth(MAX_QUERY_CHARS).is_some() {
             return Vec::new();
         }
+        let q = query.to_lowercase();
         let q_words = padded_words(&q);
         let q_id = q.replace(' ', "_");
         let mut hits: Vec<SearchHit> = Vec::new();
@@ -121,7 +129,11 @@ impl Library {
     /// nothing. The work is bounded: only the first 64 characters of a
     /// long query are compared.
     pub fn suggest(&self, query: &str) -> Vec<String> {
-        let q: String = query.to_lowercase().chars().take(MAX_FUZZY_CHARS).collect();
+        let q: String = query
+            .chars()
+            .take(MAX_FUZZY_CHARS)
+            .collect::<String>()
+            .to_lowercase();
         let mut scored: Vec<(usize, &str)> = self
             .ingredients
             .iter()
@@ -175,6 +187,9 @@ mod tests {
                 .any(|w| w == "salt"),
             "{hits:?}"
         );
+        // A megabyte pasted into the picker finds nothing, at no cost.
+        assert!(lib.search(&"sugar ".repeat(200_000), 10).is_empty());
+        assert!(lib.suggest(&"a".repeat(1_000_000)).len() <= 3);
         // The exact id wins over everything.
         assert_eq!(
             lib.search("sucrose", 5).first().map(|h| h.id.as_str()),

@@ -2,9 +2,12 @@
 //! record, built-in or the user's: each value finite and within the range
 //! the models can use, each error naming the field.
 
-use super::records::{IngredientRecord, NorrishRecord, SoluteKind, SoluteRecord, WilsonRecord};
+use super::records::{
+    FreezeBehaviour, IngredientRecord, NorrishRecord, SoluteKind, SoluteRecord, WilsonRecord,
+};
 use crate::correlations::TempFn;
 use crate::error::{FieldProblem, LibraryError};
+use crate::properties::Limits;
 use crate::water::T_ZERO_C;
 
 /// Molar masses accepted, g/mol: above hydrogen's, up to large polymers.
@@ -17,6 +20,15 @@ pub const DATA_TEMPERATURE_C: (f64, f64) = (-100.0, 400.0);
 pub const NORRISH_K_MAX: f64 = 1.0e4;
 /// Liquid molar volumes accepted, cm³/mol.
 pub const MOLAR_VOLUME_CM3_PER_MOL: (f64, f64) = (1.0, 1.0e4);
+/// Largest |a12|, |a21| of a Wilson pair accepted, J/mol, anywhere a
+/// product temperature may lie. Wilson energies of water with alcohols and
+/// glycols are of the order of 10² to 10⁴ J/mol (from memory of the
+/// compiled vapour–liquid equilibrium tables); 10⁵ leaves room, and keeps
+/// Λ = (V/V) exp(−a/RT) a finite number down to −60 °C.
+pub const WILSON_ENERGY_MAX_J_PER_MOL: f64 = 1.0e5;
+/// Water of crystallisation accepted, mol per mol of solute. The largest
+/// in the built-in data is 12 (Na₂HPO₄·12H₂O); 30 leaves room.
+pub const HYDRATE_WATER_MAX: f64 = 30.0;
 
 fn problem(id: &str, field: impl Into<String>, problem: FieldProblem) -> LibraryError {
     LibraryError::Field {
@@ -101,6 +113,14 @@ pub fn solute(rec: &SoluteRecord) -> Result<(), LibraryError> {
                 (0.0, 1.0e6),
             )?;
         }
+        if let FreezeBehaviour::Crystallises { hydrate_water } = s.on_freezing {
+            within(
+                id,
+                "solubility.on_freezing.hydrate_water",
+                hydrate_water,
+                (0.0, HYDRATE_WATER_MAX),
+            )?;
+        }
     }
     if let SoluteKind::Volatile(v) = &rec.kind {
         wilson(id, &v.wilson)?;
@@ -159,8 +179,28 @@ fn norrish(id: &str, n: &NorrishRecord) -> Result<(), LibraryError> {
 }
 
 fn wilson(id: &str, w: &WilsonRecord) -> Result<(), LibraryError> {
-    correlation(id, "kind.wilson.a12_j_per_mol", &w.a12_j_per_mol)?;
-    correlation(id, "kind.wilson.a21_j_per_mol", &w.a21_j_per_mol)?;
+    let energies = [
+        ("kind.wilson.a12_j_per_mol", &w.a12_j_per_mol),
+        ("kind.wilson.a21_j_per_mol", &w.a21_j_per_mol),
+    ];
+    for (field, f) in energies {
+        correlation(id, field, f)?;
+        // The models evaluate the energies at any product temperature, not
+        // only within the data: every 5 K from −60 to 200 °C, both ends
+        // included.
+        let (lo, hi) = Limits::TEMPERATURE_C;
+        let steps = ((hi - lo) / 5.0).ceil() as usize;
+        for i in 0..=steps {
+            let t_c = (lo + 5.0 * i as f64).min(hi);
+            let a = f.eval(t_c + T_ZERO_C, 0.1);
+            within(
+                id,
+                field,
+                a,
+                (-WILSON_ENERGY_MAX_J_PER_MOL, WILSON_ENERGY_MAX_J_PER_MOL),
+            )?;
+        }
+    }
     within(
         id,
         "kind.wilson.v_solute_cm3_per_mol",

@@ -257,12 +257,34 @@ pub fn ice_fraction(
                 f_tol: 1e-10,
                 max_iter: 100,
             };
-            let root = solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts).map_err(|e| {
-                ModelError::Solver {
-                    property: "ice fraction",
-                    source: e,
+            let root = match solve_warm(&mut f, u_floor, 0.0, x0, slope0, opts) {
+                Ok(root) => root,
+                // Even a liquid of 1e-6 of the water is above ice
+                // equilibrium: what stays liquid is a trace of a solute
+                // that never crystallises (a co-solvent) in less water
+                // than that. The water is frozen but for the hydrates'.
+                Err(SolverError::NoBracket { f_lo, .. }) if f_lo > 0.0 => {
+                    let bound = ev.hydrate_water_kg(before).min(w_total);
+                    let ice = w_total - bound;
+                    warm.ln_liquid = None;
+                    return Ok(IcePoint {
+                        temperature_c: t_c,
+                        ice_fraction_of_water: ice / w_total,
+                        ice_fraction_of_total: ice / total_kg,
+                        liquid_fraction_of_water: 0.0,
+                        hydrate_fraction_of_water: bound / w_total,
+                        water_activity: ln_ice.exp(),
+                        fully_frozen: true,
+                        eutectic: false,
+                    });
                 }
-            })?;
+                Err(e) => {
+                    return Err(ModelError::Solver {
+                        property: "ice fraction",
+                        source: e,
+                    });
+                }
+            };
             if let Some(u1) = warm.ln_liquid {
                 warm.prev2 = warm.prev;
                 warm.prev = Some((warm.t_last, u1));

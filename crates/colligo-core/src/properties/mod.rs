@@ -188,7 +188,8 @@ pub fn evaluate(
     if comp.water_kg <= 0.0 {
         return Err(ModelError::NoWater);
     }
-    if !(cond.pressure_pa.is_finite() && cond.pressure_pa > 1000.0) {
+    // The low end of the range a project may hold, included.
+    if !(cond.pressure_pa.is_finite() && cond.pressure_pa >= Limits::PRESSURE_KPA.0 * 1000.0) {
         return Err(ModelError::UnusablePressure {
             pa: cond.pressure_pa,
         });

@@ -120,7 +120,7 @@ impl Recovery {
     pub fn pending(&mut self, lib: &Library) -> Option<(RecoveryRecord, Project)> {
         let f = self.file()?;
         let text = std::fs::read_to_string(&f).ok()?;
-        let rec: RecoveryRecord = ron::from_str(&text).ok()?;
+        let rec: RecoveryRecord = ron::from_str(colligo_core::project::without_bom(&text)).ok()?;
         let p = Project::from_ron(&rec.project_ron, &f.display().to_string(), lib).ok()?;
         self.awaiting_answer = true;
         Some((rec, p))

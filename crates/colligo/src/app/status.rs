@@ -54,10 +54,12 @@ impl FrameStats {
 }
 
 impl WorkbenchApp {
-    /// Shows a status message.
+    /// Shows a status message (a very long word in it, such as a pasted
+    /// id, is shortened).
     pub fn say(&mut self, text: impl Into<String>, error: bool) {
+        let text: String = text.into();
         self.status = Some(Status {
-            text: text.into(),
+            text: colligo_core::error::elide_words(&text).into_owned(),
             error,
             at: Instant::now(),
         });

@@ -9,8 +9,10 @@ use std::path::PathBuf;
 use anyhow::{Context, Result, bail};
 use clap::Args;
 use colligo_core::composition::Composition;
+use colligo_core::error::elide;
 use colligo_core::keys::ScalarKey;
 use colligo_core::models::ModelChoice;
+use colligo_core::project::without_bom;
 use colligo_core::properties::{self, Conditions, QuickEvaluator, Wanted};
 use colligo_core::{Library, ModelError};
 
@@ -22,9 +24,9 @@ use crate::csv_out;
 #[derive(Debug, Clone, Args)]
 #[command(after_help = batch_help())]
 pub struct BatchArgs {
-    /// CSV file of formulas: a `name` column, then one column per ingredient id (grams)
-    #[arg(value_name = "FORMULAS.csv")]
-    pub file: PathBuf,
+    /// CSV files of formulas: a `name` column, then one column per ingredient id (grams)
+    #[arg(value_name = "FORMULAS.csv", required = true, num_args = 1..)]
+    pub files: Vec<PathBuf>,
     /// The conditions (for every row).
     #[command(flatten)]
     pub conditions: ConditionArgs,
@@ -41,6 +43,9 @@ fn batch_help() -> String {
     format!(
         "Each row of FORMULAS.csv is one formula in grams; an empty cell is none. One CSV row per \
 formula goes to stdout, with the reason in the `error` column when a formula cannot be computed.\n\n\
+Several files are computed one after the other, in the order given, under one header; each file \
+has its own header, and with more than one file an error names the file and its line. A file \
+that cannot be read, or a header that cannot be used, stops the batch with the file's name.\n\n\
 Properties: {}.",
         keys.join(", ")
     )
@@ -52,8 +57,6 @@ Properties: {}.",
 /// An unreadable file, a header without a `name` column, or an unknown
 /// ingredient column. Rows that fail are reported in the output.
 pub fn run(a: &BatchArgs, base: &Library, out: &mut dyn std::io::Write) -> Result<()> {
-    let path = a.file.display();
-    let text = std::fs::read_to_string(&a.file).with_context(|| format!("reading {path}"))?;
     let mut cond = Conditions::default();
     a.conditions.apply(&mut cond);
     let model = ModelChoice::from(a.model);
@@ -61,9 +64,29 @@ pub fn run(a: &BatchArgs, base: &Library, out: &mut dyn std::io::Write) -> Resul
         Some(KeyList(ks)) => ks,
         None => &ScalarKey::ALL,
     };
-    let rows = run_batch(base, &text, keys, model, &cond).with_context(|| path.to_string())?;
     let mut w = std::io::BufWriter::with_capacity(1 << 16, out);
-    w.write_all(&rows)?;
+    let several = a.files.len() > 1;
+    for (n, file) in a.files.iter().enumerate() {
+        let path = file.display();
+        let bytes = std::fs::read(file).with_context(|| format!("reading {path}"))?;
+        let text = String::from_utf8(bytes).with_context(|| format!("reading {path}"))?;
+        let origin = if several {
+            format!("{path} line")
+        } else {
+            "line".to_string()
+        };
+        let rows = run_batch_from(base, without_bom(&text), keys, model, &cond, &origin)
+            .with_context(|| path.to_string())?;
+        // Every file's rows under the first file's header.
+        let body = if n == 0 {
+            &rows[..]
+        } else {
+            rows.iter()
+                .position(|&b| b == b'\n')
+                .map_or(&[][..], |i| &rows[i + 1..])
+        };
+        w.write_all(body)?;
+    }
     w.flush()?;
     Ok(())
 }
@@ -87,6 +110,19 @@ pub fn run_batch(
     model: ModelChoice,
     cond: &Conditions,
 ) -> Result<Vec<u8>> {
+    run_batch_from(lib, text, keys, model, cond, "line")
+}
+
+/// As [`run_batch`], an error row starting with `origin` and the line
+/// number (`line 3`, or `b.csv line 3` when several files are computed).
+fn run_batch_from(
+    lib: &Library,
+    text: &str,
+    keys: &[ScalarKey],
+    model: ModelChoice,
+    cond: &Conditions,
+    origin: &str,
+) -> Result<Vec<u8>> {
     let mut reader = csv::ReaderBuilder::new()
         .has_headers(false)
         .flexible(true)
@@ -97,10 +133,7 @@ pub fn run_batch(
             bail!("empty file");
         }
         if !blank(&fields) {
-            break fields
-                .iter()
-                .map(|h| h.trim_start_matches('\u{feff}').to_string())
-                .collect();
+            break fields.iter().map(ToString::to_string).collect();
         }
     };
     let name_col = header
@@ -152,14 +185,15 @@ pub fn run_batch(
                 }
                 let g: f64 = cell.parse().map_err(|_| {
                     format!(
-                        "`{cell}` in column {} is not a number of grams",
+                        "`{}` in column {} is not a number of grams",
+                        elide(cell),
                         header[i].trim()
                     )
                 })?;
                 if !(g.is_finite() && g >= 0.0) {
                     return Err(format!(
                         "{} g of {} is not a mass ≥ 0",
-                        cell,
+                        elide(cell),
                         header[i].trim()
                     ));
                 }
@@ -198,7 +232,7 @@ pub fn run_batch(
                 for _ in keys {
                     out.write_field("")?;
                 }
-                out.write_record([format!("line {lineno}: {e}")])?;
+                out.write_record([format!("{origin} {lineno}: {e}")])?;
             }
         }
     }

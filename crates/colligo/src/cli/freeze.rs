@@ -5,6 +5,7 @@ use std::io::Write;
 use anyhow::{Result, bail};
 use clap::Args;
 use colligo_core::Library;
+use colligo_core::error::elide;
 use colligo_core::properties;
 use colligo_core::quantity::parse_temperature_c;
 use colligo_core::water::T_ZERO_C;
@@ -48,9 +49,9 @@ pub fn parse_step(text: &str) -> Result<f64, String> {
         .trim_end_matches('°')
         .trim()
         .parse()
-        .map_err(|_| format!("`{text}` is not a number"))?;
+        .map_err(|_| format!("`{}` is not a number", elide(text)))?;
     if !v.is_finite() {
-        Err(format!("`{text}` is not finite"))
+        Err(format!("`{}` is not finite", elide(text)))
     } else if v == 0.0 {
         Err("must not be zero".into())
     } else {

@@ -6,6 +6,7 @@ use std::path::PathBuf;
 
 use anyhow::{Context, Result, anyhow, bail};
 use clap::{Args, ValueEnum};
+use colligo_core::error::elide;
 use colligo_core::formula::parse_mix;
 use colligo_core::keys::ScalarKey;
 use colligo_core::models::ModelChoice;
@@ -202,7 +203,8 @@ impl FormulaArgs {
                         .cloned()
                         .ok_or_else(|| {
                             anyhow!(
-                                "{shown}: no variant named `{name}` (variants: {})",
+                                "{shown}: no variant named `{}` (variants: {})",
+                                elide(name),
                                 p.variants
                                     .iter()
                                     .map(|v| v.name.as_str())
