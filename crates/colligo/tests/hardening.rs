@@ -923,3 +923,30 @@ fn a_project_line_above_the_bound_is_refused_on_load() {
     );
     assert!(err.len() < 300, "{err}");
 }
+
+/// Issue 8, item 7: adding a pure solute never raises a_w. The examples
+/// found by a random search: acetic acid (negative Norrish K) added to a
+/// concentrated sorbitol + HFCS solution under Norrish, and a first trace
+/// of potassium chloride in a humectant base under `auto` (which used to
+/// switch from Norrish to ZSR and jump up).
+#[test]
+fn adding_a_solute_on_the_command_line_never_raises_water_activity() {
+    let aw = |mix: &str, model: &str| {
+        let o = colligo(&["eval", "--mix", mix, "--model", model, "--json"]);
+        assert!(o.status.success(), "{}", stderr(&o));
+        json(&o)["water_activity"].as_f64().unwrap_or(f64::NAN)
+    };
+    let base = "sorbitol=6.771g, high_fructose_syrup_42=13.576g";
+    let (a0, a1) = (
+        aw(base, "norrish"),
+        aw(&format!("{base}, acetic_acid=0.320g"), "norrish"),
+    );
+    assert!(a1 < a0, "acetic acid raised a_w {a0} → {a1}");
+    let base = "water=78.61150753478944g, isomalt=3.072g, panthenol=51.134g, acetic_acid=33.38g, malic_acid=3.052g";
+    let a0 = aw(base, "auto");
+    for g in ["0.000256", "0.256"] {
+        let a1 = aw(&format!("{base}, potassium_chloride={g}g"), "auto");
+        assert!(a1 < a0, "{g} g KCl raised a_w {a0} → {a1}");
+        assert!(a0 - a1 < 0.01, "{g} g KCl: a jump {a0} → {a1}");
+    }
+}
