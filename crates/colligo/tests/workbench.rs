@@ -42,6 +42,16 @@ fn harness_in(dir: PathBuf) -> Harness<'static, WorkbenchApp> {
     h
 }
 
+/// Steps the app until `done` holds: the chart worker runs on its own
+/// thread, so this waits on the wall clock (up to 60 s on a loaded machine).
+fn wait_for(h: &mut Harness<'_, WorkbenchApp>, done: impl Fn(&Harness<'_, WorkbenchApp>) -> bool) {
+    let deadline = std::time::Instant::now() + std::time::Duration::from_secs(60);
+    while !done(h) && std::time::Instant::now() < deadline {
+        h.step();
+        std::thread::sleep(std::time::Duration::from_millis(5));
+    }
+}
+
 fn aw(h: &Harness<'_, WorkbenchApp>) -> f64 {
     h.state()
         .eval
@@ -215,17 +225,19 @@ fn picking_the_sweep_ingredient() {
         Some("glycerin_995")
     );
     // The chart worker delivers a sweep of that ingredient.
-    for _ in 0..200 {
-        h.step();
-        std::thread::sleep(std::time::Duration::from_millis(5));
-        if let Some(colligo::app::compute::ChartData::Sweep { ingredient, .. }) =
-            h.state().charts.current()
-        {
-            assert_eq!(ingredient, "glycerin_995");
-            return;
-        }
+    wait_for(&mut h, |h| {
+        matches!(
+            h.state().charts.current(),
+            Some(colligo::app::compute::ChartData::Sweep { .. })
+        )
+    });
+    if let Some(colligo::app::compute::ChartData::Sweep { ingredient, .. }) =
+        h.state().charts.current()
+    {
+        assert_eq!(ingredient, "glycerin_995");
+    } else {
+        panic!("no sweep data arrived");
     }
-    panic!("no sweep data arrived");
 }
 
 #[test]
@@ -494,12 +506,17 @@ fn goal_seek_finds_aw_085_and_applies_it() {
         "the answer is shown before it is applied"
     );
     assert!(h.query_by_label_contains("gives a_w 0.85").is_some());
+    apply_and_expect(&mut h, 0.85);
+}
+
+/// Clicks "Apply to the formula" and checks the formula then has `target`.
+fn apply_and_expect(h: &mut Harness<'_, WorkbenchApp>, target: f64) {
     h.get_by_label("Apply to the formula").click();
     h.run();
     assert!(
-        (aw(&h) - 0.85).abs() < 1e-3,
+        (aw(h) - target).abs() < 1e-3,
         "a_w after applying: {}",
-        aw(&h)
+        aw(h)
     );
 }
 
@@ -723,13 +740,7 @@ fn chart_data_exports_to_csv() {
     let dir = data_dir("csv");
     let mut h = harness_in(dir.clone());
     // Wait for the worker's sweep.
-    for _ in 0..400 {
-        h.step();
-        if h.state().charts.current().is_some() {
-            break;
-        }
-        std::thread::sleep(std::time::Duration::from_millis(5));
-    }
+    wait_for(&mut h, |h| h.state().charts.current().is_some());
     assert!(h.state().charts.current().is_some(), "no chart data");
     h.get_by_label("Export CSV…").click();
     h.run();
@@ -990,13 +1001,7 @@ fn comparison_and_ranking_follow_every_document_replacement() {
 #[test]
 fn the_chart_never_shows_the_previous_projects_data() {
     let mut h = harness("chart-replace");
-    for _ in 0..400 {
-        h.step();
-        if h.state().charts.current().is_some() {
-            break;
-        }
-        std::thread::sleep(std::time::Duration::from_millis(5));
-    }
+    wait_for(&mut h, |h| h.state().charts.current().is_some());
     h.run();
     // The spread's sweep varies its strawberry purée; the legend says so.
     assert!(
@@ -1082,13 +1087,7 @@ fn a_solved_amount_goes_stale_when_the_formula_changes() {
     // Solved again for this formula, it applies and gives the target.
     h.get_by_label("Find amount").click();
     h.run();
-    h.get_by_label("Apply to the formula").click();
-    h.run();
-    assert!(
-        (aw(&h) - 0.85).abs() < 1e-3,
-        "a_w after applying: {}",
-        aw(&h)
-    );
+    apply_and_expect(&mut h, 0.85);
 }
 
 #[test]

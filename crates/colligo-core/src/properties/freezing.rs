@@ -178,19 +178,16 @@ pub fn ice_fraction(
         || all_saturated_u(ev, before, t_k)
             .is_some_and(|u_sat| ev.ln_aw(t_k, w_total * u_sat.exp(), &mode) - ln_ice > 0.0)
     {
-        let bound = ev.hydrate_water_kg(before).min(w_total);
-        let ice = w_total - bound;
         warm.ln_liquid = None;
-        return Ok(IcePoint {
-            temperature_c: t_c,
-            ice_fraction_of_water: ice / w_total,
-            ice_fraction_of_total: ice / total_kg,
-            liquid_fraction_of_water: 0.0,
-            hydrate_fraction_of_water: bound / w_total,
-            water_activity: ln_ice.exp(),
-            fully_frozen: true,
-            eutectic: !pure_water,
-        });
+        return Ok(frozen_solid(
+            ev,
+            before,
+            w_total,
+            total_kg,
+            t_c,
+            ln_ice,
+            !pure_water,
+        ));
     }
     // ZSR can be turned around: the liquid that gives ln a_w,ice directly.
     let zsr_liquid = if ev.model() == Model::Zsr && !ev.has_volatile() {
@@ -264,19 +261,10 @@ pub fn ice_fraction(
                 // that never crystallises (a co-solvent) in less water
                 // than that. The water is frozen but for the hydrates'.
                 Err(SolverError::NoBracket { f_lo, .. }) if f_lo > 0.0 => {
-                    let bound = ev.hydrate_water_kg(before).min(w_total);
-                    let ice = w_total - bound;
                     warm.ln_liquid = None;
-                    return Ok(IcePoint {
-                        temperature_c: t_c,
-                        ice_fraction_of_water: ice / w_total,
-                        ice_fraction_of_total: ice / total_kg,
-                        liquid_fraction_of_water: 0.0,
-                        hydrate_fraction_of_water: bound / w_total,
-                        water_activity: ln_ice.exp(),
-                        fully_frozen: true,
-                        eutectic: false,
-                    });
+                    return Ok(frozen_solid(
+                        ev, before, w_total, total_kg, t_c, ln_ice, false,
+                    ));
                 }
                 Err(e) => {
                     return Err(ModelError::Solver {
@@ -445,6 +433,30 @@ pub fn freezing_curve(
         points,
         warnings,
     })
+}
+
+/// No liquid left: all the water is ice but for what crystal hydrates bind.
+fn frozen_solid(
+    ev: &Evaluator<'_>,
+    before: &[f64],
+    w_total: f64,
+    total_kg: f64,
+    t_c: f64,
+    ln_ice: f64,
+    eutectic: bool,
+) -> IcePoint {
+    let bound = ev.hydrate_water_kg(before).min(w_total);
+    let ice = w_total - bound;
+    IcePoint {
+        temperature_c: t_c,
+        ice_fraction_of_water: ice / w_total,
+        ice_fraction_of_total: ice / total_kg,
+        liquid_fraction_of_water: 0.0,
+        hydrate_fraction_of_water: bound / w_total,
+        water_activity: ln_ice.exp(),
+        fully_frozen: true,
+        eutectic,
+    }
 }
 
 #[cfg(test)]
