@@ -27,17 +27,26 @@ fn harness(name: &str) -> Harness<'static, WorkbenchApp> {
 }
 
 fn harness_in(dir: PathBuf) -> Harness<'static, WorkbenchApp> {
+    harness_stepping(dir, None)
+}
+
+/// The app on `dir`, with frames `step_dt` s apart (kittest's default
+/// when `None`).
+fn harness_stepping(dir: PathBuf, step_dt: Option<f32>) -> Harness<'static, WorkbenchApp> {
     let app = WorkbenchApp::new(Startup {
         open: None,
         data_dir: Some(dir),
         prefs: Default::default(),
     });
-    let mut h = Harness::builder()
+    let mut builder = Harness::builder()
         .with_size(egui::vec2(1400.0, 900.0))
         // The chart worker repaints when its result lands, which can take
         // a few extra frames to settle.
-        .with_max_steps(64)
-        .build_ui_state(|ui, app: &mut WorkbenchApp| app.ui_root(ui), app);
+        .with_max_steps(64);
+    if let Some(dt) = step_dt {
+        builder = builder.with_step_dt(dt);
+    }
+    let mut h = builder.build_ui_state(|ui, app: &mut WorkbenchApp| app.ui_root(ui), app);
     h.run();
     h
 }
@@ -1116,18 +1125,7 @@ fn the_solve_dialog_starts_afresh_with_another_document() {
 /// A harness whose frames are 1/60 s apart, so that a few clicks and
 /// keys stay well inside the 2 s autosave delay.
 fn quick_harness_in(dir: PathBuf) -> Harness<'static, WorkbenchApp> {
-    let app = WorkbenchApp::new(Startup {
-        open: None,
-        data_dir: Some(dir),
-        prefs: Default::default(),
-    });
-    let mut h = Harness::builder()
-        .with_size(egui::vec2(1400.0, 900.0))
-        .with_step_dt(1.0 / 60.0)
-        .with_max_steps(64)
-        .build_ui_state(|ui, app: &mut WorkbenchApp| app.ui_root(ui), app);
-    h.run();
-    h
+    harness_stepping(dir, Some(1.0 / 60.0))
 }
 
 #[test]
